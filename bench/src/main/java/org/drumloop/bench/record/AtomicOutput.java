@@ -1,0 +1,69 @@
+package org.drumloop.bench.record;
+
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+
+/**
+ * A text output written to a temporary file beside its target and moved into place only when
+ * complete, so a failed run never truncates or half-writes an earlier record.
+ */
+public final class AtomicOutput implements AutoCloseable {
+    private final Path target;
+    private final Path temp;
+    private final BufferedWriter writer;
+    private boolean done;
+
+    public AtomicOutput(Path target) throws IOException {
+        this.target = target;
+        Path dir = target.toAbsolutePath().getParent();
+        Files.createDirectories(dir);
+        this.temp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".part");
+        this.writer = new BufferedWriter(Files.newBufferedWriter(temp, StandardCharsets.UTF_8), 1 << 16);
+    }
+
+    public Writer writer() { return writer; }
+
+    public Path target() { return target; }
+
+    /** Flush, close and move into place. */
+    public void commit() throws IOException {
+        writer.close();
+        try {
+            Files.move(temp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+        } catch (AtomicMoveNotSupportedException e) {
+            Files.move(temp, target, StandardCopyOption.REPLACE_EXISTING);
+        }
+        done = true;
+    }
+
+    /** Discard unless committed. */
+    @Override
+    public void close() {
+        if (!done) {
+            try {
+                writer.close();
+            } catch (IOException ignored) {
+                // the temporary file is deleted below either way
+            }
+            try {
+                Files.deleteIfExists(temp);
+            } catch (IOException ignored) {
+                // nothing more to do: the target is untouched
+            }
+        }
+    }
+
+    /** Write a whole text atomically. */
+    public static void write(Path target, String text) throws IOException {
+        try (AtomicOutput o = new AtomicOutput(target)) {
+            o.writer().write(text);
+            o.commit();
+        }
+    }
+}

@@ -1,0 +1,350 @@
+package org.drumloop.bench.record;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+import org.drumloop.bench.expect.Channel;
+import org.drumloop.bench.expect.Expectation;
+import org.drumloop.bench.expect.Outcome;
+import org.drumloop.core.io.EngUnit;
+
+/**
+ * {@code report.html}: one self-contained page (inline CSS and SVG; no scripts, fonts or anything
+ * fetched) with the scenario, every expectation and its verdict, key figures, plots with the level
+ * limits and alarm/trip markers, the events and the caution text.
+ */
+public final class HtmlReport {
+    /** The caution printed on every report. */
+    public static final String CAUTION = "drumloop is a test bench, not a safety system. Alarm and trip settings"
+            + " shown here are bench defaults; on a real boiler every interlock setting comes from the boiler maker,"
+            + " the classification rules and local codes, and is confirmed at commissioning. Never connect a"
+            + " write-capable mode to a live boiler without a permit and licensed supervision.";
+    /** Events listed in the report (the events file has all). */
+    static final int EVENTS_SHOWN = 400;
+
+    private static final int W = 1040;
+    private static final int H = 250;
+    private static final int ML = 64;
+    private static final int MR = 16;
+    private static final int MT = 14;
+    private static final int MB = 34;
+
+    private static final String C_BLUE = "#34557a";
+    private static final String C_TEAL = "#3f8585";
+    private static final String C_OCHRE = "#b0892f";
+    private static final String C_RUST = "#a4513a";
+    private static final String C_GREY = "#7b8088";
+    private static final String C_PLUM = "#6f5a88";
+
+    private HtmlReport() {
+    }
+
+    /** One line on a plot. */
+    record Series(Channel channel, String color, String label, boolean dashed) {
+    }
+
+    public static String render(RunSummary r) {
+        StringBuilder sb = new StringBuilder(256 * 1024);
+        String title = r.scenario().title();
+        sb.append("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">\n<title>")
+                .append(Html.esc(title)).append(" - drumloop report</title>\n<style>\n").append(CSS)
+                .append("</style></head><body>\n");
+        boolean pass = r.passed();
+        sb.append("<header><div class=\"verdict ").append(pass ? "pass" : "fail").append("\" id=\"verdict\">")
+                .append(pass ? "PASS" : "FAIL").append("</div><h1>").append(Html.esc(title)).append("</h1>\n");
+        sb.append("<p class=\"meta\">scenario <code>").append(Html.esc(r.scenario().file()))
+                .append("</code> &middot; plant <code>").append(Html.esc(r.plantName()))
+                .append("</code> &middot; tuning <code>").append(Html.esc(r.tuningName())).append("</code> &middot; ")
+                .append(fmt(r.endS(), 1)).append(" s of plant time &middot; seed ").append(r.scenario().seed())
+                .append("</p></header>\n");
+        if (!r.scenario().description().isEmpty()) {
+            sb.append("<p>").append(Html.esc(r.scenario().description())).append("</p>\n");
+        }
+        sb.append("<aside class=\"caution\"><strong>Caution.</strong> ").append(Html.esc(CAUTION)).append("</aside>\n");
+        if (r.plantInvalid()) {
+            sb.append("<p class=\"warn\">The plant left the valid range of its model during this run (see events);"
+                    + " figures after that point describe a clamped state.</p>\n");
+        }
+
+        // expectations
+        sb.append("<h2>Acceptance criteria</h2>\n<table class=\"expect\" id=\"expectations\"><thead><tr><th>line</th>"
+                + "<th>expectation</th><th>result</th><th>measured</th></tr></thead><tbody>\n");
+        for (Outcome o : r.outcomes()) {
+            sb.append("<tr class=\"expectation ").append(o.passed() ? "pass" : "fail").append("\"><td>")
+                    .append(o.line()).append("</td><td><code>").append(Html.esc(o.text())).append("</code></td><td>")
+                    .append(o.passed() ? "pass" : "FAIL").append("</td><td>").append(Html.esc(o.measured()))
+                    .append("</td></tr>\n");
+        }
+        if (r.outcomes().isEmpty()) {
+            sb.append("<tr><td colspan=\"4\">No expectations in this scenario.</td></tr>\n");
+        }
+        sb.append("</tbody></table>\n");
+
+        // key figures
+        KeyFigures k = r.figures();
+        sb.append("<h2>Key figures</h2>\n<table class=\"figures\" id=\"figures\"><tbody>\n");
+        row(sb, "largest level deviation from setpoint", fmt(k.maxDeviationM() * 1000, 1) + " mm at "
+                + fmt(k.maxDeviationAtS(), 1) + " s");
+        row(sb, "integral of absolute level error (IAE)", fmt(k.iaeMS() * 1000, 0) + " mm&middot;s");
+        row(sb, "feed valve travel", fmt(k.valveTravelFrac() * 100, 1) + " % of stroke");
+        double rec = k.recoveryS();
+        row(sb, "recovery after the last action (level within &plusmn;"
+                + fmt(KeyFigures.RECOVERY_BAND_M * 1000, 0) + " mm of setpoint)",
+                Double.isNaN(rec) ? "not recovered by the end" : fmt(rec, 1) + " s");
+        row(sb, "scans", Long.toString(r.scans()));
+        row(sb, "events", r.events().size() + (r.soeLost() > 0 ? " (" + r.soeLost() + " SOE events lost)" : ""));
+        sb.append("</tbody></table>\n");
+
+        // plots
+        List<double[]> alarms = new ArrayList<>();
+        for (EventRecord e : r.events()) {
+            if (e.kind().equals("ALARM")) {
+                alarms.add(new double[] {e.tS(), 0});
+            } else if (e.kind().equals("TRIP")) {
+                alarms.add(new double[] {e.tS(), 1});
+            }
+        }
+        sb.append("<h2>Trends</h2>\n");
+        sb.append("<figure id=\"plot-level\"><figcaption>Drum level relative to normal water level [mm]")
+                .append(" &mdash; limits: alarm dashed, trip solid; markers: alarm &#9650; trip &#9632;</figcaption>\n");
+        plot(sb, r, "level", EngUnit.MM, List.of(
+                new Series(Channel.DRUM_LEVEL, C_BLUE, "true level", false),
+                new Series(Channel.MEASURED_LEVEL, C_TEAL, "controller level", false),
+                new Series(Channel.SETPOINT, C_GREY, "setpoint", true)), r.limits(), alarms);
+        sb.append("</figure>\n<figure id=\"plot-flow\"><figcaption>Steam and feed flow [t/h]</figcaption>\n");
+        plot(sb, r, "flow", EngUnit.T_PER_H, List.of(
+                new Series(Channel.STEAM_FLOW, C_RUST, "steam flow", false),
+                new Series(Channel.FEED_FLOW, C_BLUE, "feed flow", false),
+                new Series(Channel.FEED_FLOW_SETPOINT, C_GREY, "feed flow setpoint", true)), List.of(), alarms);
+        sb.append("</figure>\n<figure id=\"plot-valve\"><figcaption>Feed valve and firing [%]</figcaption>\n");
+        plot(sb, r, "valve", EngUnit.PERCENT, List.of(
+                new Series(Channel.FEED_VALVE, C_BLUE, "valve position", false),
+                new Series(Channel.VALVE_DEMAND, C_GREY, "valve demand", true),
+                new Series(Channel.FIRING, C_OCHRE, "firing", false),
+                new Series(Channel.STEAM_DEMAND, C_PLUM, "steam demand", true)), List.of(), alarms);
+        sb.append("</figure>\n<figure id=\"plot-pressure\"><figcaption>Drum pressure [barg]</figcaption>\n");
+        plot(sb, r, "pressure", EngUnit.BARG, List.of(
+                new Series(Channel.DRUM_PRESSURE, C_RUST, "drum pressure", false)), List.of(), alarms);
+        sb.append("</figure>\n");
+
+        // events
+        sb.append("<h2>Events</h2>\n<table class=\"events\" id=\"events\"><thead><tr><th>t [s]</th><th>tag</th>"
+                + "<th>kind</th><th>message</th></tr></thead><tbody>\n");
+        int n = 0;
+        for (EventRecord e : r.events()) {
+            if (n++ >= EVENTS_SHOWN) {
+                sb.append("<tr><td colspan=\"4\">&hellip; more in events.csv</td></tr>\n");
+                break;
+            }
+            sb.append("<tr class=\"k-").append(Html.esc(e.kind().toLowerCase(Locale.ROOT))).append("\"><td>")
+                    .append(fmt(e.tS(), 2)).append("</td><td>").append(Html.esc(e.tag())).append("</td><td>")
+                    .append(Html.esc(e.kind())).append("</td><td>").append(Html.esc(e.message())).append("</td></tr>\n");
+        }
+        sb.append("</tbody></table>\n");
+
+        sb.append("<h2>Scenario file</h2>\n<pre class=\"source\">");
+        int ln = 1;
+        for (String l : r.scenario().source()) {
+            sb.append(String.format(Locale.ROOT, "%3d  ", ln++)).append(Html.esc(l)).append('\n');
+        }
+        sb.append("</pre>\n<footer>drumloop bench record &middot; ").append(r.scans()).append(" scans in ")
+                .append(fmt(r.wallS(), 3)).append(" s wall time</footer>\n</body></html>\n");
+        return sb.toString();
+    }
+
+    private static void row(StringBuilder sb, String k, String v) {
+        sb.append("<tr><th>").append(k).append("</th><td>").append(v).append("</td></tr>\n");
+    }
+
+    static void plot(StringBuilder sb, RunSummary r, String id, EngUnit unit, List<Series> series,
+                     List<RunSummary.LevelLimit> limits, List<double[]> markers) {
+        PlotBuffer p = r.plot();
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (Series s : series) {
+            for (int b = 0; b < p.buckets(); b++) {
+                if (p.filled(b)) {
+                    double a = unit.fromSi(p.min(s.channel(), b));
+                    double c = unit.fromSi(p.max(s.channel(), b));
+                    if (Double.isFinite(a)) {
+                        lo = Math.min(lo, a);
+                    }
+                    if (Double.isFinite(c)) {
+                        hi = Math.max(hi, c);
+                    }
+                }
+            }
+        }
+        for (RunSummary.LevelLimit l : limits) {
+            double v = unit.fromSi(l.levelM());
+            lo = Math.min(lo, v);
+            hi = Math.max(hi, v);
+        }
+        if (!(hi >= lo)) {
+            lo = 0;
+            hi = 1;
+        }
+        if (hi - lo < 1e-9) {
+            lo -= 1;
+            hi += 1;
+        }
+        double pad = (hi - lo) * 0.06;
+        lo -= pad;
+        hi += pad;
+        double[] ticks = ticks(lo, hi, 6);
+        lo = Math.min(lo, ticks[0]);
+        hi = Math.max(hi, ticks[ticks.length - 1]);
+        double t1 = p.durationS();
+        int pw = W - ML - MR;
+        int ph = H - MT - MB;
+        sb.append("<svg class=\"plot\" id=\"svg-").append(id).append("\" xmlns=\"http://www.w3.org/2000/svg\" width=\"")
+                .append(W).append("\" height=\"").append(H).append("\" viewBox=\"0 0 ").append(W).append(' ').append(H)
+                .append("\" role=\"img\">\n");
+        sb.append("<rect x=\"").append(ML).append("\" y=\"").append(MT).append("\" width=\"").append(pw)
+                .append("\" height=\"").append(ph).append("\" class=\"area\"/>\n");
+        for (double t : ticks) {
+            double y = MT + ph * (hi - t) / (hi - lo);
+            sb.append(String.format(Locale.ROOT,
+                    "<line x1=\"%d\" x2=\"%d\" y1=\"%.1f\" y2=\"%.1f\" class=\"grid\"/><text x=\"%d\" y=\"%.1f\" class=\"ylab\">%s</text>%n",
+                    ML, ML + pw, y, y, ML - 6, y + 4, trim(t)));
+        }
+        boolean minutes = t1 > 1800;
+        double[] xt = ticks(0, minutes ? t1 / 60 : t1, 10);
+        for (double t : xt) {
+            double ts = minutes ? t * 60 : t;
+            if (ts < 0 || ts > t1 + 1e-9) {
+                continue;
+            }
+            double x = ML + pw * ts / t1;
+            sb.append(String.format(Locale.ROOT,
+                    "<line x1=\"%.1f\" x2=\"%.1f\" y1=\"%d\" y2=\"%d\" class=\"grid\"/><text x=\"%.1f\" y=\"%d\" class=\"xlab\">%s</text>%n",
+                    x, x, MT, MT + ph, x, MT + ph + 16, trim(t)));
+        }
+        sb.append(String.format(Locale.ROOT, "<text x=\"%d\" y=\"%d\" class=\"xunit\">%s</text>%n", ML + pw,
+                H - 2, minutes ? "t [min]" : "t [s]"));
+        for (RunSummary.LevelLimit l : limits) {
+            double v = unit.fromSi(l.levelM());
+            double y = MT + ph * (hi - v) / (hi - lo);
+            sb.append(String.format(Locale.ROOT,
+                    "<line x1=\"%d\" x2=\"%d\" y1=\"%.1f\" y2=\"%.1f\" class=\"limit %s\"/><text x=\"%d\" y=\"%.1f\" class=\"limlab\">%s</text>%n",
+                    ML, ML + pw, y, y, l.trip() ? "trip" : "alarm", ML + 4, y - 3, Html.esc(l.tag())));
+        }
+        for (double[] m : markers) {
+            double x = ML + pw * Math.min(m[0], t1) / t1;
+            boolean trip = m[1] > 0.5;
+            sb.append(String.format(Locale.ROOT,
+                    "<line x1=\"%.1f\" x2=\"%.1f\" y1=\"%d\" y2=\"%d\" class=\"marker %s\"/>", x, x, MT, MT + ph,
+                    trip ? "trip" : "alarm"));
+            if (trip) {
+                sb.append(String.format(Locale.ROOT, "<rect x=\"%.1f\" y=\"%d\" width=\"8\" height=\"8\" class=\"mk-trip\"/>%n",
+                        x - 4, MT - 4));
+            } else {
+                sb.append(String.format(Locale.ROOT, "<path d=\"M%.1f %d l4 -8 l4 8 z\" class=\"mk-alarm\"/>%n",
+                        x - 4, MT + 4));
+            }
+        }
+        int legendX = ML + 8;
+        for (Series s : series) {
+            StringBuilder d = new StringBuilder();
+            boolean pen = false;
+            for (int b = 0; b < p.buckets(); b++) {
+                if (!p.filled(b)) {
+                    continue;
+                }
+                double a = unit.fromSi(p.min(s.channel(), b));
+                double c = unit.fromSi(p.max(s.channel(), b));
+                if (!Double.isFinite(a) || !Double.isFinite(c)) {
+                    pen = false;
+                    continue;
+                }
+                double x = ML + pw * Math.min(p.timeS(b), t1) / t1;
+                double ya = MT + ph * (hi - a) / (hi - lo);
+                double yc = MT + ph * (hi - c) / (hi - lo);
+                d.append(pen ? 'L' : 'M').append(String.format(Locale.ROOT, "%.1f %.1f", x, ya));
+                if (Math.abs(ya - yc) > 0.5) {
+                    d.append(String.format(Locale.ROOT, "L%.1f %.1f", x, yc));
+                }
+                pen = true;
+            }
+            sb.append("<path d=\"").append(d).append("\" class=\"series").append(s.dashed() ? " dashed" : "")
+                    .append("\" stroke=\"").append(s.color()).append("\"><title>").append(Html.esc(s.label()))
+                    .append("</title></path>\n");
+            sb.append(String.format(Locale.ROOT,
+                    "<line x1=\"%d\" x2=\"%d\" y1=\"%d\" y2=\"%d\" stroke=\"%s\" class=\"series%s\"/><text x=\"%d\" y=\"%d\" class=\"legend\">%s</text>%n",
+                    legendX, legendX + 18, MT + 14, MT + 14, s.color(), s.dashed() ? " dashed" : "", legendX + 22,
+                    MT + 18, Html.esc(s.label())));
+            legendX += 40 + 7 * s.label().length();
+        }
+        sb.append("</svg>\n");
+    }
+
+    /** "Nice" tick values (1, 2, 5 × 10^k) covering lo..hi with about n steps. */
+    static double[] ticks(double lo, double hi, int n) {
+        double span = hi - lo;
+        double raw = span / n;
+        double mag = Math.pow(10, Math.floor(Math.log10(raw)));
+        double step = mag;
+        for (double m : new double[] {1, 2, 5, 10}) {
+            if (m * mag >= raw) {
+                step = m * mag;
+                break;
+            }
+        }
+        double first = Math.floor(lo / step) * step;
+        double last = Math.ceil(hi / step) * step;
+        int count = (int) Math.round((last - first) / step) + 1;
+        double[] t = new double[count];
+        for (int i = 0; i < count; i++) {
+            t[i] = first + i * step;
+        }
+        return t;
+    }
+
+    static String trim(double v) {
+        if (Math.abs(v - Math.rint(v)) < 1e-9) {
+            return Long.toString(Math.round(v));
+        }
+        String s = String.format(Locale.ROOT, "%.3f", v);
+        s = s.replaceAll("0+$", "");
+        return s.endsWith(".") ? s.substring(0, s.length() - 1) : s;
+    }
+
+    static String fmt(double v, int d) {
+        return Double.isNaN(v) ? "n/a" : Expectation.fmt(v, d);
+    }
+
+    private static final String CSS = String.join("\n",
+            "body{font-family:system-ui,-apple-system,'Segoe UI',Roboto,'DejaVu Sans',sans-serif;color:#24282d;",
+            "background:#f7f6f2;margin:0 auto;max-width:1080px;padding:18px 20px 40px;line-height:1.45}",
+            "h1{font-size:1.45em;margin:.1em 0 .2em;font-weight:600}",
+            "h2{font-size:1.1em;margin:1.6em 0 .5em;font-weight:600;color:#34557a;border-bottom:1px solid #d8d5cc;padding-bottom:3px}",
+            "header{border-bottom:2px solid #34557a;padding-bottom:6px;margin-bottom:10px}",
+            ".meta{color:#5c626a;margin:0;font-size:.92em}",
+            ".verdict{float:right;font-weight:700;padding:6px 14px;border-radius:3px;letter-spacing:.06em;color:#fff}",
+            ".verdict.pass{background:#4a7a55}.verdict.fail{background:#a4513a}",
+            ".caution{background:#f1ead8;border-left:4px solid #b0892f;padding:8px 12px;font-size:.9em;margin:12px 0}",
+            ".warn{background:#f4e1da;border-left:4px solid #a4513a;padding:8px 12px}",
+            "table{border-collapse:collapse;width:100%;font-size:.9em;background:#fff}",
+            "th,td{border:1px solid #dedbd3;padding:4px 8px;text-align:left;vertical-align:top}",
+            "thead th{background:#eceae4;font-weight:600}",
+            "table.figures th{width:45%;font-weight:normal;color:#444}",
+            "tr.expectation.pass td:nth-child(3){color:#3d6b47;font-weight:600}",
+            "tr.expectation.fail td{background:#f8e8e3}tr.expectation.fail td:nth-child(3){color:#a4513a;font-weight:700}",
+            "tr.k-trip td{color:#8e3f2b}tr.k-alarm td{color:#8a6a20}",
+            "code{font-family:'DejaVu Sans Mono',Menlo,Consolas,monospace;font-size:.92em}",
+            "figure{margin:10px 0 18px}figcaption{font-size:.88em;color:#5c626a;margin-bottom:3px}",
+            "svg.plot{background:#fff;border:1px solid #dedbd3;max-width:100%;height:auto}",
+            "svg .area{fill:#fff}svg .grid{stroke:#ebe9e3;stroke-width:1}",
+            "svg text{font-family:system-ui,'DejaVu Sans',sans-serif;font-size:11px;fill:#5c626a}",
+            "svg .ylab{text-anchor:end}svg .xlab{text-anchor:middle}svg .xunit{text-anchor:end}",
+            "svg .legend{fill:#333}",
+            "svg .series{fill:none;stroke-width:1.6;stroke-linejoin:round}svg .dashed{stroke-dasharray:5 3}",
+            "svg .limit{stroke-width:1.2}svg .limit.alarm{stroke:#b0892f;stroke-dasharray:6 4}svg .limit.trip{stroke:#a4513a}",
+            "svg .limlab{fill:#8a6a20;font-size:10px}",
+            "svg .marker{stroke-width:1;opacity:.55}svg .marker.alarm{stroke:#b0892f;stroke-dasharray:2 3}svg .marker.trip{stroke:#a4513a}",
+            "svg .mk-alarm{fill:#b0892f}svg .mk-trip{fill:#a4513a}",
+            "pre.source{background:#fff;border:1px solid #dedbd3;padding:8px;font-size:.85em;overflow-x:auto}",
+            "footer{margin-top:24px;color:#7b8088;font-size:.8em}",
+            "");
+}

@@ -1,0 +1,56 @@
+package org.drumloop.bench.record;
+
+import java.util.List;
+
+import org.drumloop.bench.expect.Outcome;
+import org.drumloop.bench.scenario.Scenario;
+
+/**
+ * Everything the records say about one finished run.
+ *
+ * @param scenario   what was run
+ * @param plantName  plant as resolved (file name)
+ * @param tuningName tuning as resolved (file name)
+ * @param endS       plant time reached [s]
+ * @param wallS      wall time of the run [s]
+ * @param scans      scans executed
+ * @param outcomes   verdict per expectation, in file order
+ * @param figures    key figures
+ * @param plot       decimated trends for the plots
+ * @param events     events kept in memory (the file has all)
+ * @param limits     level limits to draw (alarm and trip settings)
+ * @param soeLost    SOE events lost because the ring overflowed
+ * @param plantInvalid true when the plant left its valid range during the run
+ */
+public record RunSummary(Scenario scenario, String plantName, String tuningName, double endS, double wallS,
+                         long scans, List<Outcome> outcomes, KeyFigures figures, PlotBuffer plot,
+                         List<EventRecord> events, List<LevelLimit> limits, long soeLost, boolean plantInvalid) {
+
+    /** True when every expectation held. */
+    public boolean passed() {
+        for (Outcome o : outcomes) {
+            if (!o.passed()) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    public int failures() {
+        int n = 0;
+        for (Outcome o : outcomes) {
+            n += o.passed() ? 0 : 1;
+        }
+        return n;
+    }
+
+    /**
+     * A level setting drawn on the level plot.
+     *
+     * @param tag    LAL, LALL, LAH, LAHH, ...
+     * @param levelM level relative to NWL [m]
+     * @param trip   true for a trip (drawn solid), false for an alarm (dashed)
+     */
+    public record LevelLimit(String tag, double levelM, boolean trip) {
+    }
+}
