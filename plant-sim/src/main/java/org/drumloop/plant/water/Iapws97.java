@@ -424,13 +424,13 @@ public final class Iapws97 {
      * A coarse march from the far end of the branch brackets the first crossing, then Newton
      * steps refine it inside the bracket (bisection when a step leaves it).
      *
-     * @param liquid true for the liquid branch (march down from 1000 kg/m3), false for the
+     * @param liquid true for the liquid branch (march down from 800 kg/m3), false for the
      *               vapour branch (march up from 50 kg/m3)
      * @return density in kg/m3, or NaN if no crossing is found
      */
     public static double density3(double pPa, double tK, boolean liquid) {
         final double stepKgM3 = 2.0;
-        double a = liquid ? 1000.0 : 50.0;
+        double a = liquid ? 800.0 : 50.0;
         double fa = pressure3(a, tK) - pPa;
         if (liquid ? fa < 0.0 : fa > 0.0) {
             return Double.NaN;
