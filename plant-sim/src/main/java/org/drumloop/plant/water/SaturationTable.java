@@ -77,17 +77,17 @@ public final class SaturationTable {
         double pb = REGION3_BOUNDARY_PRESSURE_PA;
         double total = Math.log(pMaxPa / pMinPa);
         if (pMaxPa <= pb) {
-            low = new Segment(pMinPa, pMaxPa, nodes);
+            low = new Segment(pMinPa, pMaxPa, nodes, false);
             high = null;
         } else if (pMinPa >= pb) {
             low = null;
-            high = new Segment(pMinPa, pMaxPa, nodes);
+            high = new Segment(pMinPa, pMaxPa, nodes, true);
         } else {
             int nHigh = (int) Math.round(nodes * Math.log(pMaxPa / pb) / total);
             nHigh = Math.max(8, nHigh);
             int nLow = Math.max(8, nodes - nHigh);
-            low = new Segment(pMinPa, pb, nLow);
-            high = new Segment(pb, pMaxPa, nHigh);
+            low = new Segment(pMinPa, pb, nLow, false);
+            high = new Segment(pb, pMaxPa, nHigh, true);
         }
     }
 
@@ -124,7 +124,7 @@ public final class SaturationTable {
         /** Per node: five values then five d/d(ln p) derivatives. */
         private final double[] data;
 
-        Segment(double pFromPa, double pToPa, int n) {
+        Segment(double pFromPa, double pToPa, int n, boolean region3) {
             this.n = n;
             this.x0 = Math.log(pFromPa);
             double x1 = Math.log(pToPa);
@@ -134,7 +134,7 @@ public final class SaturationTable {
             SaturationState s = new SaturationState();
             for (int i = 0; i < n; i++) {
                 double p = i == 0 ? pFromPa : i == n - 1 ? pToPa : Math.exp(x0 + i * dx);
-                direct(p, s);
+                direct(p, region3, s);
                 int o = i * STRIDE;
                 data[o] = s.tsK;
                 data[o + 1] = s.rhoW;
@@ -197,12 +197,22 @@ public final class SaturationTable {
      * {@link #lookup}; meant for building tables and for checks.
      */
     public static void direct(double pPa, SaturationState out) {
+        direct(pPa, pPa > REGION3_BOUNDARY_PRESSURE_PA, out);
+    }
+
+    /**
+     * As {@link #direct(double, SaturationState)}, with the side of 16.529 MPa chosen by the
+     * caller, so that a table segment starting exactly at the boundary gets region 3 values.
+     */
+    static void direct(double pPa, boolean region3, SaturationState out) {
         double h = DIFFERENCE_STEP * pPa;
         double pb = REGION3_BOUNDARY_PRESSURE_PA;
-        // derivative stencil: central unless it would cross the region boundary
+        // derivative stencil: central unless it would reach across the region boundary
         int mode;
-        if (pPa - h < pb && pPa + h > pb) {
-            mode = pPa > pb ? 1 : -1; // forward above the boundary, backward at/below it
+        if (region3 && pPa - h < pb) {
+            mode = 1; // forward differences inside region 3
+        } else if (!region3 && pPa + h > pb) {
+            mode = -1; // backward differences inside regions 1 and 2
         } else {
             mode = 0;
         }
@@ -215,19 +225,19 @@ public final class SaturationTable {
             pA = pPa + mode * h;
             pB = pPa + 2 * mode * h;
         }
-        values(pA, out);
+        values(pA, region3, out);
         double tA = out.tsK;
         double rwA = out.rhoW;
         double rsA = out.rhoS;
         double hwA = out.hW;
         double hsA = out.hS;
-        values(pB, out);
+        values(pB, region3, out);
         double tB = out.tsK;
         double rwB = out.rhoW;
         double rsB = out.rhoS;
         double hwB = out.hW;
         double hsB = out.hS;
-        values(pPa, out);
+        values(pPa, region3, out);
         if (mode == 0) {
             double inv = 1.0 / (pA - pB);
             out.dTsDp = (tA - tB) * inv;
@@ -246,12 +256,15 @@ public final class SaturationTable {
         }
     }
 
-    /** Values only (no derivatives) at {@code pPa}; derivative fields of {@code out} untouched. */
-    static void values(double pPa, SaturationState out) {
+    /**
+     * Values only (no derivatives) at {@code pPa}, from regions 1 and 2 or from region 3;
+     * derivative fields of {@code out} are left untouched.
+     */
+    static void values(double pPa, boolean region3, SaturationState out) {
         double ts = Iapws97.saturationTemperatureK(pPa);
         out.pPa = pPa;
         out.tsK = ts;
-        if (pPa <= REGION3_BOUNDARY_PRESSURE_PA) {
+        if (!region3) {
             out.rhoW = 1.0 / Iapws97.specificVolume1(pPa, ts);
             out.rhoS = 1.0 / Iapws97.specificVolume2(pPa, ts);
             out.hW = Iapws97.enthalpy1(pPa, ts);
