@@ -3,6 +3,8 @@ package org.drumloop.plant.water;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import com.hummeling.if97.IF97;
+import java.lang.reflect.Constructor;
+import java.lang.reflect.Method;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -125,6 +127,41 @@ class Iapws97AgainstReferenceLibraryTest {
                 rel(lib.speedOfSoundPT(pm, t), Iapws97.speedOfSound2(p, t), "w2" + at);
             }
         }
+    }
+
+    @Test
+    void region3BasicEquationAgreesWithTheReferenceLibrary() throws Exception {
+        // The library keeps its region 3 (rho, T) functions package-private; they are reached
+        // by reflection (pinned library version 1.0.5, test scope only). Units: MPa, kJ/kg,
+        // kJ/(kg K), m/s. Same basic equation on both sides: 1e-9 relative (rounding only).
+        Class<?> region3 = Class.forName("com.hummeling.if97.Region3");
+        Constructor<?> make = region3.getDeclaredConstructor();
+        make.setAccessible(true);
+        Object lib3 = make.newInstance();
+        Method p = rhoT(region3, "pressureRhoT");
+        Method h = rhoT(region3, "specificEnthalpyRhoT");
+        Method u = rhoT(region3, "specificInternalEnergyRhoT");
+        Method s3 = rhoT(region3, "specificEntropyRhoT");
+        Method cp = rhoT(region3, "specificIsobaricHeatCapacityRhoT");
+        Method w = rhoT(region3, "speedOfSoundRhoT");
+        for (double t = 630.0; t <= 860.0; t += 23.0) {
+            for (double rho = 120.0; rho <= 720.0; rho += 60.0) {
+                String at = " at " + rho + " kg/m3, " + t + " K";
+                // source: com.hummeling:if97:1.0.5 region 3 functions of (rho, T)
+                rel((double) p.invoke(lib3, rho, t) * MPA, Iapws97.pressure3(rho, t), "p3" + at);
+                rel((double) h.invoke(lib3, rho, t) * KJ, Iapws97.enthalpy3(rho, t), "h3" + at);
+                rel((double) u.invoke(lib3, rho, t) * KJ, Iapws97.internalEnergy3(rho, t), "u3" + at);
+                rel((double) s3.invoke(lib3, rho, t) * KJ, Iapws97.entropy3(rho, t), "s3" + at);
+                rel((double) cp.invoke(lib3, rho, t) * KJ, Iapws97.cp3(rho, t), "cp3" + at);
+                rel((double) w.invoke(lib3, rho, t), Iapws97.speedOfSound3(rho, t), "w3" + at);
+            }
+        }
+    }
+
+    private static Method rhoT(Class<?> type, String name) throws NoSuchMethodException {
+        Method m = type.getDeclaredMethod(name, double.class, double.class);
+        m.setAccessible(true);
+        return m;
     }
 
     @Test
