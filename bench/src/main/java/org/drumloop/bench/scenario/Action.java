@@ -12,7 +12,7 @@ package org.drumloop.bench.scenario;
  * @param input   the input set or ramped (SET, RAMP)
  * @param value   SI value: set/ramp target, fault magnitude, manual output, bypass duration
  * @param overS   ramp time, or duration of a fault (noise burst, steam surge) [s]
- * @param label   mode label, fault kind name (plant's Fault.Kind), or "on"/"off"
+ * @param label   mode label or fault kind name (plant's Fault.Kind)
  * @param target  fault target (transmitter or equipment tag), interlock tag
  * @param reason  bypass reason
  */
@@ -20,7 +20,7 @@ public record Action(double atS, int line, String text, Type type, Input input, 
                      String label, String target, String reason) {
 
     /** What an action does. */
-    public enum Type { SET, RAMP, MODE, SWELL_COMP, AUTO, MANUAL, RESET, ACKNOWLEDGE, BYPASS, FAULT, CLEAR }
+    public enum Type { SET, RAMP, MODE, AUTO, MANUAL, RESET, ACKNOWLEDGE, BYPASS, FAULT, CLEAR }
 
     /** Scenario inputs that {@code set} and {@code ramp} act on, with the SI unit their value needs. */
     public enum Input {

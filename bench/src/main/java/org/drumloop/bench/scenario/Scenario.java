@@ -20,12 +20,13 @@ import org.drumloop.bench.expect.Expectation;
  * @param durationS       run length [s]
  * @param seed            plant noise seed
  * @param initialLoadFrac steam demand the plant starts balanced at [fraction of rating]
+ * @param swellComp       false to run with the firmware's swell compensation switched off
  * @param actions         timed statements in time order (stable for equal times)
  * @param expectations    acceptance criteria in file order
  * @param source          the file's lines, for the report
  */
 public record Scenario(String file, Path path, String name, String title, String description, String plant,
                        int plantLine, String tuning, int tuningLine, double durationS, long seed,
-                       double initialLoadFrac, List<Action> actions, List<Expectation> expectations,
+                       double initialLoadFrac, boolean swellComp, List<Action> actions, List<Expectation> expectations,
                        List<String> source) {
 }

@@ -57,6 +57,7 @@ public final class ScenarioParser {
         double durationS = Double.NaN;
         long seed = 1;
         double loadFrac = Double.NaN;
+        boolean swellComp = true;
         // pass 1: header
         for (int i = 0; i < lines.size(); i++) {
             String text = strip(lines.get(i));
@@ -115,12 +116,21 @@ public final class ScenarioParser {
                     }
                     w.end();
                     break;
+                case "swell_comp": {
+                    String v = w.next("on or off").toLowerCase(Locale.ROOT);
+                    if (!v.equals("on") && !v.equals("off")) {
+                        throw w.error(v, "swell_comp is 'on' or 'off'");
+                    }
+                    swellComp = v.equals("on");
+                    w.end();
+                    break;
+                }
                 case "at":
                 case "expect":
                     break;
                 default:
                     throw w.error(key, "unknown statement (title, description, plant, tuning, duration, seed,"
-                            + " load, at, expect)");
+                            + " load, swell_comp, at, expect)");
             }
         }
         if (title == null) {
@@ -160,7 +170,7 @@ public final class ScenarioParser {
             name = name.substring(0, dot);
         }
         return new Scenario(file, path, name, title, description.toString(), plant, plantLine, tuning, tuningLine,
-                durationS, seed, loadFrac, List.copyOf(actions), List.copyOf(expectations), List.copyOf(lines));
+                durationS, seed, loadFrac, swellComp, List.copyOf(actions), List.copyOf(expectations), List.copyOf(lines));
     }
 
     /** The statement without comment and surrounding blanks ({@code #} inside quotes is kept). */
@@ -194,12 +204,8 @@ public final class ScenarioParser {
                     a = new Action(atS, line, text, Action.Type.MODE, null, Double.NaN, Double.NaN, mode(w), null,
                             null);
                 } else if (lw.equals("swell_comp")) {
-                    String v = w.next("on or off").toLowerCase(Locale.ROOT);
-                    if (!v.equals("on") && !v.equals("off")) {
-                        throw w.error(v, "swell_comp is 'on' or 'off'");
-                    }
-                    a = new Action(atS, line, text, Action.Type.SWELL_COMP, null, Double.NaN, Double.NaN, v, null,
-                            null);
+                    throw w.error(what, "swell compensation is chosen for the whole run: write 'swell_comp off'"
+                            + " as a line of its own, not after 'at'");
                 } else {
                     Action.Input in = input(w, what);
                     double v;

@@ -1,0 +1,62 @@
+package org.drumloop.bench.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+
+import org.drumloop.bench.ConfigResolver;
+import org.drumloop.bench.expect.Outcome;
+import org.drumloop.bench.record.RunSummary;
+import org.drumloop.bench.scenario.Scenario;
+import org.drumloop.bench.scenario.ScenarioParser;
+import org.drumloop.core.config.ConfigException;
+
+/** Helpers shared by the commands that run scenarios. */
+final class Runs {
+    private Runs() {
+    }
+
+    /** Find and parse a scenario given as a path or a name ({@code load-step-up}). */
+    static Scenario load(String ref) throws ConfigException, IOException {
+        Path p = ConfigResolver.resolve(ref, "scenarios", ".scenario", null);
+        if (p == null) {
+            throw new ConfigException(ref, 0, "", "no such scenario file (nor a scenario of that name in"
+                    + " config/scenarios or shipped: " + ConfigResolver.names("scenarios", ".scenario") + ")");
+        }
+        return ScenarioParser.load(p);
+    }
+
+    /** A progress writer when stdout is a terminal, else null (no progress when piped). */
+    static PrintWriter progress() {
+        return System.console() != null ? new PrintWriter(System.err, true) : null;
+    }
+
+    /** Print the expectations of one run as a short table. */
+    static void printOutcomes(PrintWriter out, RunSummary r) {
+        for (Outcome o : r.outcomes()) {
+            out.printf(Locale.ROOT, "  %-4s %4d  %-60s %s%n", o.passed() ? "ok" : "FAIL", o.line(),
+                    clip(o.text(), 60), o.measured());
+        }
+    }
+
+    static String clip(String s, int n) {
+        return s.length() <= n ? s : s.substring(0, n - 3) + "...";
+    }
+
+    /** One summary line per run. */
+    static void printSummaryLine(PrintWriter out, RunSummary r, Path dir) {
+        out.printf(Locale.ROOT, "%-28s %-4s %3d/%-3d  max dev %6.1f mm  IAE %8.0f mm*s  %7.0f s plant  %6.2f s wall%s%n",
+                clip(r.scenario().name(), 28), r.passed() ? "PASS" : "FAIL",
+                r.outcomes().size() - r.failures(), r.outcomes().size(), r.figures().maxDeviationM() * 1000,
+                r.figures().iaeMS() * 1000, r.endS(), r.wallS(), dir == null ? "" : "  " + dir);
+    }
+
+    static void checkWritable(Path dir) throws IOException {
+        Files.createDirectories(dir);
+        if (!Files.isWritable(dir)) {
+            throw new IOException(dir + ": not writable");
+        }
+    }
+}

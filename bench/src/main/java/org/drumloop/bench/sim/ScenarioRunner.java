@@ -1,0 +1,399 @@
+package org.drumloop.bench.sim;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+
+import org.drumloop.bench.ConfigResolver;
+import org.drumloop.bench.expect.Binder;
+import org.drumloop.bench.expect.Expectation;
+import org.drumloop.bench.expect.Frame;
+import org.drumloop.bench.expect.Outcome;
+import org.drumloop.bench.record.AtomicOutput;
+import org.drumloop.bench.record.EventLog;
+import org.drumloop.bench.record.HtmlReport;
+import org.drumloop.bench.record.KeyFigures;
+import org.drumloop.bench.record.PlotBuffer;
+import org.drumloop.bench.record.RunSummary;
+import org.drumloop.bench.record.TrendWriter;
+import org.drumloop.bench.scenario.Action;
+import org.drumloop.bench.scenario.Scenario;
+import org.drumloop.core.FirmwareConfig;
+import org.drumloop.core.Mode;
+import org.drumloop.core.OperatorCommands;
+import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.exec.SimulatedClock;
+import org.drumloop.core.safety.InterlockSet;
+import org.drumloop.core.safety.InterlockSpec;
+import org.drumloop.plant.Fault;
+import org.drumloop.plant.Plant;
+import org.drumloop.plant.PlantConfig;
+import org.drumloop.plant.PlantConfigException;
+import org.drumloop.plant.PlantFile;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+
+/**
+ * Runs a {@link Scenario} on a {@link SimulationSession}: applies its timed statements, judges its
+ * expectations scan by scan, keeps key figures and plot data, and writes {@code trend.csv},
+ * {@code events.csv} and {@code report.html} into the output folder (each written to a temporary
+ * file and moved into place only when complete).
+ */
+public final class ScenarioRunner {
+    private static final Logger LOG = LoggerFactory.getLogger(ScenarioRunner.class);
+    /** Time buckets of the plots. */
+    static final int PLOT_BUCKETS = 1200;
+    /** Tolerance when comparing an action's time with the scan time (well under any scan period). */
+    static final double TIME_EPS_S = 1e-6;
+
+    /**
+     * How to run.
+     *
+     * @param outDir      folder for the records, or null to write nothing
+     * @param speed       times real time; {@code Double.POSITIVE_INFINITY} = as fast as possible
+     * @param recordEvery write one trend row every this many scans (1 = every scan)
+     * @param progress    where to print a progress line (a terminal), or null
+     */
+    public record Options(Path outDir, double speed, int recordEvery, PrintWriter progress) {
+        public static Options fast(Path outDir) {
+            return new Options(outDir, Double.POSITIVE_INFINITY, 1, null);
+        }
+    }
+
+    /** Plant and firmware resolved for a scenario (so the CLI can report them). */
+    public record Setup(Path plantPath, PlantConfig plant, Path tuningPath, FirmwareConfig tuning) {
+    }
+
+    private ScenarioRunner() {
+    }
+
+    /** Resolve and load the plant and tuning a scenario names; errors point at the scenario line. */
+    public static Setup setup(Scenario sc) throws ConfigException, IOException {
+        Path plantPath = ConfigResolver.resolve(sc.plant(), "plants", ".plant", sc.path());
+        if (plantPath == null) {
+            throw new ConfigException(sc.file(), sc.plantLine(), sc.plant(),
+                    "no such plant (not a file, not in config/plants, not shipped; shipped: "
+                            + ConfigResolver.names("plants", ".plant") + ")");
+        }
+        Path tuningPath = ConfigResolver.resolve(sc.tuning(), "tuning", ".tuning", sc.path());
+        if (tuningPath == null) {
+            throw new ConfigException(sc.file(), sc.tuningLine(), sc.tuning(),
+                    "no such tuning (not a file, not in config/tuning, not shipped; shipped: "
+                            + ConfigResolver.names("tuning", ".tuning") + ")");
+        }
+        return new Setup(plantPath, loadPlant(plantPath), tuningPath, FirmwareConfig.load(tuningPath));
+    }
+
+    /** Load a plant file, with its errors in the bench's error type. */
+    public static PlantConfig loadPlant(Path p) throws ConfigException, IOException {
+        try {
+            return PlantFile.load(p);
+        } catch (PlantConfigException e) {
+            throw new ConfigException(e.file(), e.line(), e.key(), problem(e));
+        }
+    }
+
+    private static String problem(PlantConfigException e) {
+        String m = e.getMessage();
+        String prefix = e.file() + ":" + e.line() + ": " + (e.key() == null || e.key().isEmpty() ? "" : e.key() + ": ");
+        return m != null && m.startsWith(prefix) ? m.substring(prefix.length()) : m;
+    }
+
+    /** Bind a scenario's names (interlock tags, modes, swell compensation) to a firmware. */
+    public static void bind(Scenario sc, InterlockSet il) throws ConfigException {
+        Binder b = new Binder() {
+            @Override
+            public int interlockIndex(String tag) { return indexOf(il, tag); }
+
+            @Override
+            public boolean interlockIsTrip(int index) { return il.isTrip(index); }
+
+            @Override
+            public String interlockTags() { return tags(il); }
+        };
+        for (Expectation e : sc.expectations()) {
+            e.bind(b);
+        }
+        for (Action a : sc.actions()) {
+            if ((a.type() == Action.Type.BYPASS || (a.type() == Action.Type.ACKNOWLEDGE
+                    && !"all".equalsIgnoreCase(a.target()))) && indexOf(il, a.target()) < 0) {
+                throw new ConfigException(sc.file(), a.line(), a.target(),
+                        "no such alarm or trip in the interlocks (known: " + tags(il) + ")");
+            }
+        }
+    }
+
+    static int indexOf(InterlockSet il, String tag) {
+        for (int i = 0; i < il.size(); i++) {
+            if (il.tag(i).equalsIgnoreCase(tag)) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    static String tags(InterlockSet il) {
+        List<String> t = new ArrayList<>();
+        for (int i = 0; i < il.size(); i++) {
+            t.add(il.tag(i));
+        }
+        return String.join(", ", t);
+    }
+
+    /** Level limits to draw on the level plot: every level alarm and trip of the interlocks. */
+    public static List<RunSummary.LevelLimit> limits(InterlockSet il) {
+        List<RunSummary.LevelLimit> l = new ArrayList<>();
+        for (int i = 0; i < il.size(); i++) {
+            InterlockSpec s = il.spec(i);
+            if (s.variable() == InterlockSpec.Variable.LEVEL) {
+                l.add(new RunSummary.LevelLimit(s.tag(), s.setpointSi(), s.isTrip()));
+            }
+        }
+        return l;
+    }
+
+    /**
+     * Run a scenario.
+     *
+     * @throws ConfigException a file it names is wrong
+     * @throws IOException     records could not be written
+     */
+    public static RunSummary run(Scenario sc, Options o) throws ConfigException, IOException {
+        Setup setup = setup(sc);
+        SimulationSession s = new SimulationSession(setup.plant(), setup.tuning(), sc.seed(), sc.initialLoadFrac());
+        InterlockSet il = s.firmware().interlocks();
+        bind(sc, il);
+        AtomicOutput trendOut = null;
+        AtomicOutput eventsOut = null;
+        try {
+            TrendWriter trend = null;
+            EventLog events;
+            if (o.outDir() != null) {
+                trendOut = new AtomicOutput(o.outDir().resolve("trend.csv"));
+                eventsOut = new AtomicOutput(o.outDir().resolve("events.csv"));
+                trend = new TrendWriter(trendOut.writer(), interlockTags(il));
+                events = new EventLog(eventsOut.writer());
+            } else {
+                events = new EventLog(null);
+            }
+            s.setEventSink(events::add);
+            RunSummary summary;
+            try {
+                summary = loop(sc, o, setup, s, trend, events);
+            } catch (UncheckedIOException e) {
+                throw e.getCause();
+            }
+            if (o.outDir() != null) {
+                trendOut.commit();
+                eventsOut.commit();
+                AtomicOutput.write(o.outDir().resolve("report.html"), HtmlReport.render(summary));
+            }
+            return summary;
+        } finally {
+            if (trendOut != null) {
+                trendOut.close();
+            }
+            if (eventsOut != null) {
+                eventsOut.close();
+            }
+        }
+    }
+
+    private static List<String> interlockTags(InterlockSet il) {
+        List<String> t = new ArrayList<>();
+        for (int i = 0; i < il.size(); i++) {
+            t.add(il.tag(i));
+        }
+        return t;
+    }
+
+    private static RunSummary loop(Scenario sc, Options o, Setup setup, SimulationSession s, TrendWriter trend,
+                                   EventLog events) throws IOException {
+        List<Action> actions = sc.actions();
+        int na = actions.size();
+        Fault[] faults = new Fault[na];
+        for (int i = 0; i < na; i++) {
+            Action a = actions.get(i);
+            if (a.type() == Action.Type.FAULT) {
+                faults[i] = new Fault(Fault.Kind.valueOf(a.label()), a.target(), a.value(), a.overS());
+            }
+        }
+        double[] rampFrom = new double[na];
+        boolean[] rampOn = new boolean[na];
+        Expectation[] ex = sc.expectations().toArray(new Expectation[0]);
+        for (Expectation e : ex) {
+            e.start();
+        }
+        KeyFigures fig = new KeyFigures();
+        PlotBuffer plot = new PlotBuffer(sc.durationS(), PLOT_BUCKETS);
+        double lastActionS = 0;
+        for (Action a : actions) {
+            lastActionS = Math.max(lastActionS, a.type() == Action.Type.RAMP ? a.atS() + a.overS() : a.atS());
+        }
+        fig.lastActionAt(lastActionS);
+        SimulatedClock clock = Double.isInfinite(o.speed()) ? SimulatedClock.asFastAsPossible()
+                : SimulatedClock.paced(o.speed());
+        double dt = s.scanPeriodS();
+        long total = (long) Math.floor(sc.durationS() / dt + 1e-9) + 1;
+        int next = 0;
+        int every = Math.max(1, o.recordEvery());
+        long wall0 = System.nanoTime();
+        long lastProgress = wall0;
+        Frame f = s.frame();
+        for (long k = 0; k < total; k++) {
+            double t = k * dt;
+            if (clock.isPaced()) {
+                try {
+                    clock.waitUntil(t);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    break;
+                }
+            }
+            while (next < na && actions.get(next).atS() <= t + TIME_EPS_S) {
+                Action a = actions.get(next);
+                events.add(t, "scenario", "ACTION", a.text());
+                apply(s, a, faults[next], rampFrom, rampOn, next, actions);
+                next++;
+            }
+            for (int i = 0; i < na; i++) {
+                if (rampOn[i]) {
+                    Action a = actions.get(i);
+                    double x = Math.min(1.0, (t - a.atS()) / a.overS());
+                    set(s, a.input(), rampFrom[i] + (a.value() - rampFrom[i]) * x);
+                    if (x >= 1.0) {
+                        rampOn[i] = false;
+                    }
+                }
+            }
+            s.scan();
+            for (Expectation e : ex) {
+                e.observe(f);
+            }
+            fig.add(f);
+            plot.add(f);
+            if (trend != null && k % every == 0) {
+                trend.write(f);
+            }
+            if (o.progress() != null && (k & 1023) == 0) {
+                long now = System.nanoTime();
+                if (now - lastProgress > 250_000_000L) {
+                    lastProgress = now;
+                    o.progress().printf("\r%s: %5.1f %% (%.0f of %.0f s)", sc.name(), 100.0 * k / total, t,
+                            sc.durationS());
+                    o.progress().flush();
+                }
+            }
+        }
+        double wallS = (System.nanoTime() - wall0) * 1e-9;
+        if (o.progress() != null) {
+            o.progress().print("\r" + " ".repeat(60) + "\r");
+            o.progress().flush();
+        }
+        double endS = s.frame().tS;
+        List<Outcome> outcomes = new ArrayList<>();
+        for (Expectation e : ex) {
+            outcomes.add(e.finish(endS));
+        }
+        LOG.debug("{}: {} scans, {} s plant time in {} s wall ({}x real time)", sc.name(), s.scans(), endS, wallS,
+                wallS > 0 ? endS / wallS : Double.POSITIVE_INFINITY);
+        Plant p = s.plant();
+        return new RunSummary(sc, setup.plantPath().getFileName().toString(),
+                setup.tuningPath().getFileName().toString(), endS, wallS, s.scans(), outcomes, fig, plot,
+                events.kept(), limits(s.firmware().interlocks()), s.firmware().events().lost(), p.invalid());
+    }
+
+    private static void apply(SimulationSession s, Action a, Fault fault, double[] rampFrom, boolean[] rampOn,
+                              int index, List<Action> actions) {
+        OperatorCommands op = s.firmware().operator();
+        Plant p = s.plant();
+        switch (a.type()) {
+            case SET:
+                cancelRamps(a.input(), rampOn, actions);
+                set(s, a.input(), a.value());
+                break;
+            case RAMP:
+                cancelRamps(a.input(), rampOn, actions);
+                rampFrom[index] = current(s, a.input());
+                rampOn[index] = true;
+                break;
+            case MODE:
+                op.requestMode(Mode.byLabel(a.label()));
+                break;
+            case AUTO:
+                op.requestAuto(true);
+                break;
+            case MANUAL:
+                op.requestAuto(false);
+                break;
+            case RESET:
+                op.reset();
+                break;
+            case ACKNOWLEDGE:
+                op.acknowledge(a.target());
+                break;
+            case BYPASS:
+                op.bypass(a.target(), a.reason(), a.value());
+                break;
+            case FAULT:
+                p.inject(fault);
+                break;
+            case CLEAR:
+                if ("all".equals(a.target())) {
+                    p.clearAll();
+                } else if (a.label() == null) {
+                    for (Fault.Kind k : TRANSMITTER_FAULTS) {
+                        p.clear(k, a.target());
+                    }
+                } else {
+                    p.clear(Fault.Kind.valueOf(a.label()), a.target());
+                }
+                break;
+            default:
+                break;
+        }
+    }
+
+    private static final Fault.Kind[] TRANSMITTER_FAULTS = {
+        Fault.Kind.STUCK, Fault.Kind.DRIFT, Fault.Kind.BIAS, Fault.Kind.FAIL_LOW, Fault.Kind.FAIL_HIGH,
+        Fault.Kind.NOISE_BURST,
+    };
+
+    private static void cancelRamps(Action.Input in, boolean[] rampOn, List<Action> actions) {
+        for (int i = 0; i < rampOn.length; i++) {
+            if (rampOn[i] && actions.get(i).input() == in) {
+                rampOn[i] = false;
+            }
+        }
+    }
+
+    /** Apply a scenario input value (SI). */
+    static void set(SimulationSession s, Action.Input in, double v) {
+        Plant p = s.plant();
+        switch (in) {
+            case STEAM_DEMAND: s.setSteamDemand(v); break;
+            case FEED_TEMP: p.setFeedTemperatureK(v); break;
+            case PRESSURE_SETPOINT: s.setPressureSetpointPa(v); break;
+            case FIRING: p.setFiringManual(v); break;
+            case SETPOINT: s.firmware().operator().setLevelSetpoint(v); break;
+            case OUTPUT: s.firmware().operator().setManualOutput(v); break;
+            default: break;
+        }
+    }
+
+    /** The present value of a scenario input, where a ramp starts from. */
+    static double current(SimulationSession s, Action.Input in) {
+        switch (in) {
+            case STEAM_DEMAND: return s.steamDemandFrac();
+            case FEED_TEMP: return s.plant().feedTempK();
+            case PRESSURE_SETPOINT: return s.pressureSetpointPa();
+            case FIRING: return s.plant().firingFrac();
+            case SETPOINT: return s.firmware().status().levelSetpointM;
+            case OUTPUT: return s.firmware().status().valveDemandFrac;
+            default: return 0.0;
+        }
+    }
+}
