@@ -61,8 +61,8 @@ public final class SaturationTable {
      *
      * @param pMinPa lowest pressure, Pa, at least {@link #LOWEST_PRESSURE_PA}
      * @param pMaxPa highest pressure, Pa, at most {@link #HIGHEST_PRESSURE_PA}
-     * @param nodes  total number of nodes, at least 8 (a few thousand gives about 1e-12
-     *               relative error in the values)
+     * @param nodes  total number of nodes, at least 8; 2000 over 0.01-18 MPa give at most about
+     *               5e-10 relative error in the values and 2e-7 in the derivatives
      */
     public SaturationTable(double pMinPa, double pMaxPa, int nodes) {
         if (!(pMinPa >= LOWEST_PRESSURE_PA && pMaxPa <= HIGHEST_PRESSURE_PA && pMinPa < pMaxPa)) {
@@ -101,13 +101,18 @@ public final class SaturationTable {
         return pMaxPa;
     }
 
+    /** True if {@link #lookup} accepts {@code pPa} (false for NaN); lets a caller guard a hot path. */
+    public boolean contains(double pPa) {
+        return pPa >= pMinPa && pPa <= pMaxPa;
+    }
+
     /**
      * Fills {@code out} with the saturated state at {@code pPa}. Allocation-free.
      *
      * @throws IllegalArgumentException if {@code pPa} is outside the table (or NaN)
      */
     public void lookup(double pPa, SaturationState out) {
-        if (!(pPa >= pMinPa && pPa <= pMaxPa)) {
+        if (!contains(pPa)) {
             throw new IllegalArgumentException("pressure " + pPa + " Pa outside the saturation table "
                     + pMinPa + " .. " + pMaxPa + " Pa");
         }
