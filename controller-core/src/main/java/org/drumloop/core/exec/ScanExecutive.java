@@ -24,8 +24,8 @@ import org.drumloop.core.soe.SoeLog;
  * After an overrun the schedule keeps its phase: slots already past are skipped (counted), and the
  * next scan gets a {@code dtS} spanning them. The loop allocates nothing per scan.
  *
- * <p>Limits: the watchdog runs on the scan thread, so it sees late and failed scans, not a body
- * that never returns.
+ * <p>The watchdog runs on the scan thread, so by itself it sees late and failed scans; a body
+ * that never returns is caught by a {@link HangMonitor} on another thread (real-time runs).
  */
 public final class ScanExecutive {
     /** Allowed scan periods [s]: 10 ms to 1000 ms. */
@@ -51,6 +51,9 @@ public final class ScanExecutive {
     private long prevSlot = -1;
     private long scans;
     private RuntimeException lastFailure;
+    /** Clock time the current scan's work began, NaN between scans (read by the hang monitor). */
+    private volatile double workStartS = Double.NaN;
+    private volatile double currentScanTimeS;
 
     /**
      * @param clock    simulated or real time
@@ -125,6 +128,8 @@ public final class ScanExecutive {
         if (watchdog.applyReset() && soe != null) {
             soe.record(tS, k, TAG, EventKind.RESET, "watchdog reset");
         }
+        currentScanTimeS = tS;
+        workStartS = startS;
         io.readInputs(in, tS);
         boolean failed = false;
         try {
@@ -143,6 +148,10 @@ public final class ScanExecutive {
             lastGood.copyFrom(out);
         }
         io.writeOutputs(out, tS);
+        workStartS = Double.NaN;
+        if (watchdog.takeHangNotice() && soe != null) {
+            soe.record(tS, k, TAG, EventKind.FAULT, "scan did not complete in time: fail-safe outputs");
+        }
 
         double nextDeadlineS = t0S + (k + 1) * periodS;
         double endS = clock.nowS();
@@ -173,6 +182,19 @@ public final class ScanExecutive {
             l.afterScan(k, tS, in, out);
         }
     }
+
+    /** Clock time at which the scan now working began, NaN between scans (any thread). */
+    public double workStartS() { return workStartS; }
+
+    /** Scheduled time of the scan now working or last worked [s] (any thread). */
+    public double currentScanTimeS() { return currentScanTimeS; }
+
+    ScanClock clock() { return clock; }
+
+    ProcessIo io() { return io; }
+
+    /** Outputs of the last scan that completed in time (the hang monitor holds from them). */
+    ProcessImage lastGood() { return lastGood; }
 
     public ScanStatistics statistics() { return stats; }
 
