@@ -55,11 +55,11 @@ public record LiveAction(Kind kind, String target, String faultKind, double valu
         switch (kind) {
             case MODE: return "set mode " + target;
             case AUTO: return auto() ? "auto" : "manual";
-            case MANUAL_OUTPUT: return "set manual_output " + fmt(valueEu) + " %";
-            case SETPOINT: return "set level_setpoint " + fmt(valueEu) + " mm";
+            case MANUAL_OUTPUT: return "output " + fmt(valueEu) + " %";
+            case SETPOINT: return "setpoint " + fmt(valueEu) + " mm";
             case ACKNOWLEDGE: return "acknowledge" + ("all".equals(target) ? "" : " " + target);
             case RESET: return "reset";
-            case BYPASS: return "bypass " + target + " reason \"" + text + "\" for " + fmt(durationS) + " s";
+            case BYPASS: return "bypass " + target + " with reason \"" + text + "\" for " + fmt(durationS) + " s";
             case STEAM_DEMAND: return "set steam_demand " + fmt(valueEu) + " %";
             case STEAM_RAMP: return "ramp steam_demand to " + fmt(valueEu) + " % over " + fmt(durationS) + " s";
             case FAULT: {
@@ -76,7 +76,8 @@ public record LiveAction(Kind kind, String target, String faultKind, double valu
             case VALVE_STUCK: return "trip feed_valve stuck";
             case STEAM_SURGE: return "trip steam surge " + fmt(valueEu) + " %";
             case TUBE_LEAK: return "trip tube leak " + fmt(valueEu) + " " + unit;
-            case CLEAR: return "clear " + target;
+            case CLEAR:
+                return "clear " + ("steam".equals(target) ? "steam surge" : "drum".equals(target) ? "tube leak" : target);
             default: throw new IllegalStateException(kind.name());
         }
     }

@@ -3,6 +3,7 @@ package org.drumloop.bench.live;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.ConcurrentLinkedQueue;
 import java.util.concurrent.locks.LockSupport;
 
@@ -27,6 +28,7 @@ public final class LiveLoop {
     private final ScanTiming timing = new ScanTiming();
     private final List<String> log = new ArrayList<>();
     private final LiveSession.Sink sink = this::event;
+    private final ConcurrentLinkedQueue<CompletableFuture<List<String>>> scenarioRequests = new ConcurrentLinkedQueue<>();
     private final Thread thread;
     private volatile double speed;
     private volatile boolean paused;
@@ -72,6 +74,25 @@ public final class LiveLoop {
     /** Queue an action for the next scan boundary; false when the queue is full. */
     public boolean submit(LiveAction a) {
         return actions.offer(a);
+    }
+
+    /**
+     * The session so far as scenario file lines, taken by the loop thread at the next scan
+     * boundary (directly when the loop is not running).
+     */
+    public CompletableFuture<List<String>> scenarioLines() {
+        CompletableFuture<List<String>> f = new CompletableFuture<>();
+        if (!running) {
+            f.complete(session.scenarioLines());
+        } else {
+            scenarioRequests.add(f);
+        }
+        return f;
+    }
+
+    /** Actions waiting for the next scan boundary. */
+    int queued() {
+        return actions.size();
     }
 
     public void setPaused(boolean p) {
@@ -176,6 +197,12 @@ public final class LiveLoop {
             s.scan = scans;
             s.publishedNanos = System.nanoTime();
             snapshots.publish();
+            for (CompletableFuture<List<String>> f = scenarioRequests.poll(); f != null; f = scenarioRequests.poll()) {
+                f.complete(session.scenarioLines());
+            }
+        }
+        for (CompletableFuture<List<String>> f = scenarioRequests.poll(); f != null; f = scenarioRequests.poll()) {
+            f.completeExceptionally(new IllegalStateException("the loop has stopped"));
         }
     }
 

@@ -233,6 +233,11 @@ public final class LiveServer implements AutoCloseable {
                 return;
             }
             LiveAction a = parser.parse(m);
+            try {
+                loop.session().check(a);
+            } catch (IllegalArgumentException e) {
+                throw new CommandParser.BadCommand(e.getMessage());
+            }
             if (!loop.submit(a)) {
                 send(ex, 503, "application/json", error("too many commands waiting; try again"));
                 return;
@@ -255,27 +260,16 @@ public final class LiveServer implements AutoCloseable {
     }
 
     /** The session so far as a scenario file that replays it. */
-    public String scenarioText() {
-        List<String> actions = loop.actionLog();
-        double endS = Math.ceil(loop.session().info().scanPeriodS() + lastTime(actions));
-        StringBuilder b = new StringBuilder();
-        for (String l : loop.session().scenarioHead(Math.max(endS, 1))) {
-            b.append(l).append('\n');
+    public String scenarioText() throws IOException {
+        try {
+            List<String> lines = loop.scenarioLines().get(5, java.util.concurrent.TimeUnit.SECONDS);
+            return String.join("\n", lines) + "\n";
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IOException("interrupted while the loop wrote the scenario", e);
+        } catch (java.util.concurrent.ExecutionException | java.util.concurrent.TimeoutException e) {
+            throw new IOException("the loop did not hand over the scenario: " + e, e);
         }
-        for (String l : actions) {
-            b.append(l).append('\n');
-        }
-        return b.toString();
-    }
-
-    private double lastTime(List<String> actions) {
-        double t = 0;
-        for (String l : actions) {
-            String[] w = l.split("\\s+");
-            t = Math.max(t, Double.parseDouble(w[1]));
-        }
-        // also cover the time already run, so a replay reaches the present
-        return Math.max(t, loop.timeS());
     }
 
     private static String error(String message) {

@@ -28,11 +28,18 @@ public interface LiveSession {
     void drainEvents(Sink sink);
 
     /**
-     * The head of a scenario file that replays this session from its start: title, plant, tuning,
-     * seed, initial load and the initial operator settings, with the given duration. The live
-     * loop appends the timed statements of every action applied since.
+     * Last check before an action is queued (the page gets 400 with the message when refused);
+     * called on a server thread, so it must only read immutable state.
      */
-    java.util.List<String> scenarioHead(double durationS);
+    default void check(LiveAction action) throws IllegalArgumentException {
+    }
+
+    /**
+     * This session so far as a scenario file that replays it from its start: title, plant,
+     * tuning, seed, initial load, duration, then every action applied, timed ({@code at T s ...}),
+     * in the order applied. Called on the loop thread.
+     */
+    java.util.List<String> scenarioLines();
 
     /** Receives events; allocation here is fine (events are rare). */
     interface Sink {
