@@ -38,6 +38,9 @@ import org.drumloop.core.soe.SoeLog;
  *       change, operator action, pump auto-start, signal quality change).</li>
  * </ol>
  *
+ * <p>The first scan holds the valve at the tuning file's {@code manual_valve} while every controller
+ * initialises on it, so a start in auto is bumpless.
+ *
  * <p>Substitutions when an input is BAD: drum pressure - the design pressure (the compensated levels
  * and steam flow become UNCERTAIN); feed temperature - the design feed temperature; feed pressure -
  * the drum pressure. A BAD flow forces single-element; losing every level transmitter forces manual
@@ -223,6 +226,9 @@ public final class Firmware implements ScanBody {
         double levelCtlM = levelM - swellM;
         double spM = levelSetpointM + program.offsetM(steamKgS, steamOk);
         int strat = mode == Mode.MANUAL ? ThreeElement.MANUAL : (mode == Mode.SINGLE_ELEMENT ? ThreeElement.SINGLE : ThreeElement.THREE);
+        if (k == 0) {
+            strat = ThreeElement.MANUAL; // the first scan seeds every controller at the start valve position
+        }
         double forced = ilOut.feedValveClose ? 0.0 : Double.NaN;
         valveFrac = control.update(strat, spM, levelCtlM, steamKgS, feedKgS, manualValveFrac, forced, dtS);
 
