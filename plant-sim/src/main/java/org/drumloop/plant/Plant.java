@@ -292,7 +292,7 @@ public final class Plant {
     private double balanceFeed(double pPa, double qfKgS) {
         double header = pPa;
         double u = 1;
-        for (int outer = 0; outer < 3; outer++) {
+        for (int outer = 0; outer < 4; outer++) {
             updateFeedProperties(header);
             double lo = 0;
             double hi = 1;
@@ -312,8 +312,8 @@ public final class Plant {
             feed.solve(pPa, u, 1, 0, rhoFeed);
             header = feed.headerPa();
         }
+        // properties stay those of the last bisection, so the running plant sees the same balance
         feedHeaderPa = header;
-        updateFeedProperties(header);
         return u;
     }
 
