@@ -26,7 +26,9 @@ import org.drumloop.core.soe.SoeLog;
  * <li><b>On-delay</b>: the function becomes active when the condition has been present for
  *     {@code n = ceil(delay / dt - 1e-9)} scans after the scan where it appeared, i.e. at the first
  *     scan whose time is at least (appearance + delay); a single scan without the condition restarts
- *     the count. It drops out as soon as the condition clears (no off-delay).</li>
+ *     the count. It drops out as soon as the condition clears (no off-delay). The count is in
+ *     scans: when the executive skips slots after an overrun, the delay stretches by those slots
+ *     (it never shortens).</li>
  * <li><b>Reset</b> (when requested): each latched function whose condition is clear is released;
  *     one whose condition is still present stays latched (logged as refused).</li>
  * <li><b>Latch and annunciate</b>: a latching function latches when active and not bypassed, and
@@ -76,8 +78,8 @@ public final class InterlockSet {
     private final String[] msgConditionClear;
 
     public InterlockSet(InterlockConfig cfg, SoeLog log) {
-        this.cfg = cfg;
-        this.log = log;
+        this.cfg = java.util.Objects.requireNonNull(cfg, "cfg");
+        this.log = java.util.Objects.requireNonNull(log, "log");
         this.n = cfg.size();
         this.specs = cfg.specs().toArray(new InterlockSpec[0]);
         channelTripped = new boolean[n][3];
@@ -367,8 +369,12 @@ public final class InterlockSet {
             lastRefusal = "this interlock may not be bypassed";
             return false;
         }
-        if (!(durationS > 0) || !Double.isFinite(tS)) {
+        if (!(durationS > 0)) {
             lastRefusal = "bypass duration must be positive";
+            return false;
+        }
+        if (!Double.isFinite(tS)) {
+            lastRefusal = "bypass start time is not a time";
             return false;
         }
         if (durationS > s.bypassMaxS() * (1 + 1e-12)) {
