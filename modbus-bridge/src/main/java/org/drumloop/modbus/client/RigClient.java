@@ -99,9 +99,9 @@ public final class RigClient implements ProcessIo, AutoCloseable {
         }
     }
 
-    /** A client on Modbus TCP through j2mod. */
+    /** A client on Modbus TCP (our socket link, so that every lost connection is counted). */
     public static RigClient tcp(ChannelMap map, TcpEndpoint ep, Options opts) {
-        return new RigClient(map, J2modLink.tcp(ep, (int) Math.ceil(opts.timeoutS() * 1000)), opts);
+        return new RigClient(map, new TcpMasterLink(ep, (int) Math.ceil(opts.timeoutS() * 1000)), opts);
     }
 
     /** A client on Modbus RTU through j2mod and jSerialComm. */
