@@ -68,9 +68,20 @@ class InterlockFileTest {
         InterlockSpec lahh = c.spec(3);
         assertTrue(lahh.has(Action.FEED_VALVE_CLOSE));
         assertFalse(lahh.has(Action.FEED_PUMPS_STOP));
-        // 30 % -> 0.30 (EngUnit PERCENT factor 0.01): exact to rounding of one product.
-        assertEquals(0.30, c.failSafe().valveFrac(), 1e-15);
-        assertEquals(FailSafe.Pump.HOLD, c.failSafe().pumpA());
+        assertEquals(273.15 + 200.0, c.spec(4).setpointSi(), TOL_K);
+        assertTrue(c.failSafe().valveHold());
+    }
+
+    @Test
+    void aWatchdogBlockSetsTheFailSafeOutputs() {
+        List<String> l = new ArrayList<>(List.of("watchdog", "missed_scans 5", "valve 25 %", "pump_a stop", "pump_b run"));
+        l.addAll(Arrays.asList(GOOD_LALL));
+        FailSafe fs = Fixtures.parse(l).failSafe();
+        assertEquals(5, fs.missedScans());
+        // 25 % -> 0.25 (EngUnit PERCENT factor 0.01): exact to rounding of one product.
+        assertEquals(0.25, fs.valveFrac(), 1e-15);
+        assertEquals(FailSafe.Pump.STOP, fs.pumpA());
+        assertEquals(FailSafe.Pump.RUN, fs.pumpB());
     }
 
     @Test
