@@ -19,7 +19,7 @@ import org.junit.jupiter.api.Test;
 /**
  * The scan executive on a hand-moved clock: order of calls, absolute deadlines, overrun counting
  * and slot skipping, and the watchdog's fail-safe outputs. Expected schedules are worked by hand
- * from the rule deadline_k = t0 + k·dt (absolute deadlines, common practice for periodic tasks).
+ * from the rule deadline_k = t0 + k·dt (absolute deadlines, common practice for periodic control loops).
  */
 class ScanExecutiveTest {
     private static final double DT_S = 0.1;
