@@ -27,8 +27,9 @@ import org.drumloop.core.soe.SoeLog;
  *     {@code n = ceil(delay / dt - 1e-9)} scans after the scan where it appeared, i.e. at the first
  *     scan whose time is at least (appearance + delay); a single scan without the condition restarts
  *     the count. It drops out as soon as the condition clears (no off-delay). The count is in
- *     scans: when the executive skips slots after an overrun, the delay stretches by those slots
- *     (it never shortens).</li>
+ *     scans of the nominal period (the shortest {@code dt} seen); a scan whose {@code dt} spans
+ *     slots the executive skipped after an overrun counts as that many scans, so the delay stays
+ *     tied to time.</li>
  * <li><b>Reset</b> (when requested): each latched function whose condition is clear is released;
  *     one whose condition is still present stays latched (logged as refused).</li>
  * <li><b>Latch and annunciate</b>: a latching function latches when active and not bypassed, and
@@ -69,6 +70,7 @@ public final class InterlockSet {
     private final boolean[] pendingAck;
     private boolean pendingReset;
     private int firstOut = -1;
+    private double nominalDtS = Double.NaN;
     private String lastRefusal = "";
 
     // preformatted messages
@@ -127,6 +129,9 @@ public final class InterlockSet {
      */
     public void evaluate(InterlockInputs in, double tS, long scan, double dtS, InterlockOutputs out) {
         if (dtS > 0.0) {
+            if (!(dtS >= nominalDtS)) {
+                nominalDtS = dtS;   // first scan, or a shorter period
+            }
             applyBypassRequests(tS, scan);
             for (int i = 0; i < n; i++) {
                 evaluateCondition(i, in, tS, scan, dtS);
@@ -233,10 +238,11 @@ public final class InterlockSet {
         if (present) {
             if (!raw[i]) {
                 heldScans[i] = 0;
-            } else if (heldScans[i] < Integer.MAX_VALUE) {
-                heldScans[i]++;
+            } else {
+                long slots = Math.max(1L, Math.round(dtS / nominalDtS));
+                heldScans[i] = (int) Math.min(Integer.MAX_VALUE, heldScans[i] + slots);
             }
-            double scans = Math.ceil(s.onDelayS() / dtS - 1e-9);
+            double scans = Math.ceil(s.onDelayS() / nominalDtS - 1e-9);
             active[i] = heldScans[i] >= scans;
         } else {
             if (raw[i] && latched[i]) {

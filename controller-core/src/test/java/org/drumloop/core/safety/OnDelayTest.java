@@ -99,6 +99,27 @@ class OnDelayTest {
     }
 
     @Test
+    void aScanSpanningSkippedSlotsCountsThoseSlots() {
+        // 2 s at 0.1 s = 20 slots after onset. Onset at slot 0; slots 1..15 one by one (15), then a
+        // scan at slot 18 with dt = 0.3 s after an overrun (18): not yet; slot 19 (19) no; slot 20 acts,
+        // 2.0 s after onset as TON requires (IEC 61131-3), although only 18 scans ran.
+        SoeLog log = new SoeLog(64);
+        InterlockSet set = alarm("2 s", log);
+        InterlockOutputs out = new InterlockOutputs();
+        InterlockInputs above = inputs(ABOVE_M);
+        double dt = Fixtures.DT_S;
+        for (int k = 0; k <= 15; k++) {
+            set.evaluate(above, k * dt, k, dt, out);
+        }
+        set.evaluate(above, 18 * dt, 16, 3 * dt, out);
+        assertFalse(out.alarmLah);
+        set.evaluate(above, 19 * dt, 17, dt, out);
+        assertFalse(out.alarmLah);
+        set.evaluate(above, 20 * dt, 18, dt, out);
+        assertTrue(out.alarmLah);
+    }
+
+    @Test
     void theAlarmIsLoggedInTheScanItActsWithThatScansTime() {
         SoeLog log = new SoeLog(64);
         InterlockSet set = alarm("2 s", log);
