@@ -79,6 +79,9 @@ public final class DrumGeometry {
         double y = (guessM > 0 && guessM < diameterM) ? guessM : 0.5 * diameterM;
         for (int i = 0; i < 60; i++) {
             double f = volumeBelow(y) - volumeM3;
+            if (f == 0) {
+                return y;
+            }
             if (f > 0) {
                 hi = y;
             } else {
@@ -86,7 +89,7 @@ public final class DrumGeometry {
             }
             double a = surfaceArea(y);
             double next = a > 0 ? y - f / a : 0.5 * (lo + hi);
-            if (!(next > lo && next < hi)) {
+            if (!(next >= lo && next <= hi)) {
                 next = 0.5 * (lo + hi);
             }
             if (Math.abs(next - y) < 1e-13 * diameterM) {

@@ -117,9 +117,22 @@ public final class DrumModel implements Rk4.Ode {
         final double vst = vtM3 - vwt;
         final double mcp = cpJKgK;
 
-        final double av = VoidFraction.av(ar, rw, rs);
-        final double davDar = VoidFraction.dAvDar(ar, rw, rs);
-        final double davDp = VoidFraction.dAvDrw(ar, rw, rs) * drw + VoidFraction.dAvDrs(ar, rw, rs) * drs;
+        // void fraction and its partials (§4.5), one logarithm for all three
+        final double av;
+        final double davDar;
+        final double cFactor;
+        final double eta = ar * (rw - rs) / rs;
+        if (eta < VoidFraction.SERIES_ETA) {
+            av = VoidFraction.av(ar, rw, rs);
+            davDar = VoidFraction.dAvDar(ar, rw, rs);
+            cFactor = VoidFraction.c(ar, rw, rs);
+        } else {
+            final double lg = Math.log1p(eta);
+            av = rw / (rw - rs) * (1 - lg / eta);
+            davDar = rw / (rs * eta) * (lg / eta - 1 / (1 + eta));
+            cFactor = 1 + rw / (rs * (1 + eta)) - (rs + rw) / (rs * eta) * lg;
+        }
+        final double davDp = (rw * drs - rs * drw) * cFactor / ((rw - rs) * (rw - rs));
         final double qdc = downcomerFlow(rw, rs, av);
         final double qs = qsFixedKgS + qsPerPa * p;
         final double qf = qfKgS;

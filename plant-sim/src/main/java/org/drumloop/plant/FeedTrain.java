@@ -131,13 +131,16 @@ public final class FeedTrain {
             pumpM3S[1] = qb;
             feedM3S = qf;
             recircM3S = running * qr;
+            if (f == 0) {
+                break;
+            }
             if (f > 0) {
                 lo = p1;
             } else {
                 hi = p1;
             }
             double next = df < 0 ? p1 - f / df : 0.5 * (lo + hi);
-            if (!(next > lo && next < hi)) {
+            if (!(next >= lo && next <= hi)) {
                 next = 0.5 * (lo + hi);
             }
             if (Math.abs(next - p1) <= 1e-9 * Math.max(p1, 1e5) || hi - lo <= 1e-9 * Math.max(p1, 1e5)) {

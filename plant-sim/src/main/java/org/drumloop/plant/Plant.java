@@ -542,7 +542,7 @@ public final class Plant {
             y[3] = 0;
         }
         // level limits: water plus bubbles below the surface must stay inside the drum
-        double av = VoidFraction.av(y[2], satOut.rhoW > 0 ? satOut.rhoW : 700, satOut.rhoS > 0 ? satOut.rhoS : 40);
+        double av = model.avOut; // from the last RK4 stage: close enough for a range guard
         double vBelow = y[0] - model.vdcM3 - (1 - av) * model.vrM3 + y[3];
         if (vBelow < vBelowMinM3) {
             y[0] += vBelowMinM3 - vBelow;

@@ -26,6 +26,8 @@ public final class Transmitter {
     private final GaussianNoise noise;
 
     private double lagged;
+    private double lastDtS = Double.NaN;
+    private double lagFactor;
     private double value;
     private double ma;
 
@@ -98,7 +100,11 @@ public final class Transmitter {
         double g = noise.nextGaussian();
         if (dtS > 0) {
             if (tauS > 0) {
-                lagged += (trueValue - lagged) * (1 - Math.exp(-dtS / tauS));
+                if (dtS != lastDtS) {
+                    lastDtS = dtS;
+                    lagFactor = 1 - Math.exp(-dtS / tauS);
+                }
+                lagged += (trueValue - lagged) * lagFactor;
             } else {
                 lagged = trueValue;
             }
