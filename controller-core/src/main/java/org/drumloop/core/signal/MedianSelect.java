@@ -28,13 +28,17 @@ public final class MedianSelect {
         if (usable == 3) {
             double mx = Math.max(a, Math.max(b, c));
             double mn = Math.min(a, Math.min(b, c));
-            double med = a + b + c - mx - mn;
+            // median by comparison (exact, and it tells whose quality the result carries)
+            double med;
             Quality qm;
-            if (med == a) {
+            if ((a >= b && a <= c) || (a <= b && a >= c)) {
+                med = a;
                 qm = qa;
-            } else if (med == b) {
+            } else if ((b >= a && b <= c) || (b <= a && b >= c)) {
+                med = b;
                 qm = qb;
             } else {
+                med = c;
                 qm = qc;
             }
             valueM = med;
