@@ -193,7 +193,8 @@ function renderAlarms(v) {
   for (const a of v.interlocks) {
     const tr = $('alarm-row-' + a.tag);
     if (!tr) continue;
-    const on = a.active || a.latched;
+    // a bypassed function neither annunciates nor acts; its condition is still shown
+    const on = (a.active && !a.bypassed) || a.latched;
     const state = a.active ? (a.trip ? 'TRIPPED' : 'ACTIVE') : (a.latched ? 'LATCHED' : 'normal');
     tr.className = (on ? (a.trip ? 'st-trip' : 'st-alarm') : 'st-normal') + (a.acked ? '' : ' unacked');
     tr.querySelector('.type').textContent = a.trip ? 'trip' : 'alarm';

@@ -1,0 +1,309 @@
+package org.drumloop.bench.live;
+
+import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
+import org.drumloop.bench.expect.Channel;
+import org.drumloop.bench.expect.Frame;
+import org.drumloop.bench.record.RunSummary;
+import org.drumloop.bench.scenario.Action;
+import org.drumloop.bench.scenario.Scenario;
+import org.drumloop.bench.scenario.ScenarioParser;
+import org.drumloop.bench.sim.ScenarioRunner;
+import org.drumloop.bench.sim.SimulationSession;
+import org.drumloop.core.FirmwareStatus;
+import org.drumloop.core.Mode;
+import org.drumloop.core.OperatorCommands;
+import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.safety.InterlockSet;
+import org.drumloop.plant.Fault;
+import org.drumloop.plant.Plant;
+import org.drumloop.plant.PlantConfig;
+
+/**
+ * The live page over the bench's real closed loop: a {@link SimulationSession} (plant, plant I/O
+ * adapter and firmware) set up from a scenario exactly as {@code drumloop run} sets it up.
+ *
+ * <p>Every page action is first written as a scenario statement and read back with the bench's
+ * own {@link ScenarioParser}; the parsed action is then applied here the way the scenario runner
+ * applies it (operator actions through {@link OperatorCommands}, the firmware's queued bumpless
+ * paths; faults and inputs on the plant; ramps recomputed before every scan). The saved scenario
+ * is therefore the same statements the runner reads, with the same numbers, applied at the same
+ * scans, and {@code drumloop run saved.scenario} replays the run.
+ *
+ * <p>The timed statements of a scenario given with {@code --scenario} play as in a run;
+ * its expectations are not evaluated live.
+ */
+public final class SimLiveSession implements LiveSession {
+    /** The scenario runner applies an action when its time is within this of the scan time. */
+    static final double TIME_EPS_S = 0.005;
+    /** Statements are checked as part of a run this long (the parser's limit: 7 days). */
+    static final double CHECK_DURATION_S = 7 * 86_400.0;
+    private static final List<LiveInfo.Transmitter> TRANSMITTERS = List.of(
+            new LiveInfo.Transmitter("level_tx_a", "level A (dp)", "Pa"),
+            new LiveInfo.Transmitter("level_tx_b", "level B (dp)", "Pa"),
+            new LiveInfo.Transmitter("level_tx_c", "level C (dp)", "Pa"),
+            new LiveInfo.Transmitter("steam_flow_tx", "steam flow (dp)", "Pa"),
+            new LiveInfo.Transmitter("feed_flow_tx", "feed flow (dp)", "Pa"),
+            new LiveInfo.Transmitter("pressure_tx", "drum pressure", "Pa"),
+            new LiveInfo.Transmitter("feed_temp_tx", "feed temperature", "K"),
+            new LiveInfo.Transmitter("feed_pressure_tx", "feed pump discharge pressure", "Pa"));
+    private static final Fault.Kind[] TRANSMITTER_FAULTS = {
+        Fault.Kind.STUCK, Fault.Kind.DRIFT, Fault.Kind.BIAS, Fault.Kind.FAIL_LOW, Fault.Kind.FAIL_HIGH,
+        Fault.Kind.NOISE_BURST,
+    };
+
+    private final Scenario scenario;
+    private final ScenarioRunner.Setup setup;
+    private final SimulationSession sim;
+    private final InterlockSet interlocks;
+    private final LiveInfo info;
+    private final List<Action> scripted;
+    private int nextScripted;
+    /** One ramp at most per input, as in the runner (a new set or ramp cancels the old one). */
+    private final Action[] ramp = new Action[Action.Input.values().length];
+    private final double[] rampFrom = new double[Action.Input.values().length];
+    private final List<String> applied = new ArrayList<>();
+    private final List<Object[]> pending = new ArrayList<>();
+
+    /** Set up plant, tuning, seed and initial load as {@code drumloop run} does for {@code sc}. */
+    public SimLiveSession(Scenario sc) throws ConfigException, IOException {
+        this.scenario = sc;
+        this.setup = ScenarioRunner.setup(sc);
+        this.sim = new SimulationSession(setup.plant(), setup.tuning(), sc.seed(), sc.initialLoadFrac());
+        this.interlocks = sim.firmware().interlocks();
+        ScenarioRunner.bind(sc, interlocks);
+        this.scripted = sc.actions();
+        sim.setEventSink((tS, tag, kind, message) -> pending.add(new Object[] {tS, tag, kind, message}));
+        PlantConfig pc = setup.plant();
+        List<LiveInfo.Line> lines = new ArrayList<>();
+        for (RunSummary.LevelLimit l : ScenarioRunner.limits(interlocks)) {
+            lines.add(new LiveInfo.Line(l.tag(), l.levelM(), l.trip()));
+        }
+        List<String> tags = new ArrayList<>();
+        for (int i = 0; i < interlocks.size(); i++) {
+            tags.add(interlocks.tag(i));
+        }
+        this.info = new LiveInfo(pc.name(), pc.description(), setup.tuningPath().getFileName().toString(), false,
+                "simulated plant, in process", sim.scanPeriodS(), pc.levelRangeLowM(), pc.levelRangeHighM(), lines,
+                pc.ratedSteamFlowKgS(), Math.max(pc.nominalPressurePa(), pc.pressureSetpointPa()) * 1.25,
+                TRANSMITTERS, tags, List.of("feed_pump_a", "feed_pump_b", "burner"));
+    }
+
+    /** A live session with no script: the default plant and tuning at the given load. */
+    public static SimLiveSession idle(String plant, String tuning, double loadFrac, long seed)
+            throws ConfigException, IOException {
+        List<String> text = List.of("title     Live session", "plant     " + plant, "tuning    " + tuning,
+                "seed      " + seed, "load      " + LiveAction.fmt(loadFrac * 100) + " %",
+                "duration  " + LiveAction.fmt(CHECK_DURATION_S) + " s");
+        return new SimLiveSession(ScenarioParser.parse("live", null, text));
+    }
+
+    public SimulationSession simulation() {
+        return sim;
+    }
+
+    @Override
+    public LiveInfo info() {
+        return info;
+    }
+
+    @Override
+    public double timeS() {
+        return sim.timeS();
+    }
+
+    @Override
+    public void check(LiveAction action) {
+        parse(0.0, action.scenarioStatement());
+    }
+
+    /** Read one statement back with the bench's scenario parser, as a replay will. */
+    private static Action parse(double atS, String statement) {
+        List<String> text = List.of("title live", "duration " + LiveAction.fmt(CHECK_DURATION_S) + " s",
+                "at " + LiveAction.fmt(atS) + " s " + statement);
+        try {
+            return ScenarioParser.parse("live", null, text).actions().get(0);
+        } catch (ConfigException e) {
+            throw new IllegalArgumentException(statement + ": " + e.getMessage(), e);
+        }
+    }
+
+    @Override
+    public void apply(LiveAction action) {
+        double t = sim.timeS();
+        Action a;
+        try {
+            a = parse(t, action.scenarioStatement());
+        } catch (IllegalArgumentException e) {
+            pending.add(new Object[] {t, "live", "INFO", "refused: " + e.getMessage()});
+            return;
+        }
+        run(a, t);
+    }
+
+    private void run(Action a, double t) {
+        applied.add(a.text());
+        pending.add(new Object[] {t, "scenario", "ACTION", a.text()});
+        OperatorCommands op = sim.firmware().operator();
+        Plant p = sim.plant();
+        switch (a.type()) {
+            case SET:
+                ramp[a.input().ordinal()] = null;
+                set(a.input(), a.value());
+                break;
+            case RAMP:
+                ramp[a.input().ordinal()] = a;
+                rampFrom[a.input().ordinal()] = current(a.input());
+                break;
+            case MODE:
+                op.requestMode(Mode.byLabel(a.label()));
+                break;
+            case AUTO:
+                op.requestAuto(true);
+                break;
+            case MANUAL:
+                op.requestAuto(false);
+                break;
+            case RESET:
+                op.reset();
+                break;
+            case ACKNOWLEDGE:
+                op.acknowledge(a.target());
+                break;
+            case BYPASS:
+                op.bypass(a.target(), a.reason(), a.value());
+                break;
+            case FAULT:
+                p.inject(new Fault(Fault.Kind.valueOf(a.label()), a.target(), a.value(), a.overS()));
+                break;
+            case CLEAR:
+                if ("all".equals(a.target())) {
+                    p.clearAll();
+                } else if (a.label() == null) {
+                    for (Fault.Kind k : TRANSMITTER_FAULTS) {
+                        p.clear(k, a.target());
+                    }
+                } else {
+                    p.clear(Fault.Kind.valueOf(a.label()), a.target());
+                }
+                break;
+            default:
+                pending.add(new Object[] {t, "live", "INFO", "not available on the live page: " + a.text()});
+                break;
+        }
+    }
+
+    private void set(Action.Input in, double v) {
+        switch (in) {
+            case STEAM_DEMAND: sim.setSteamDemand(v); break;
+            case FEED_TEMP: sim.plant().setFeedTemperatureK(v); break;
+            case PRESSURE_SETPOINT: sim.setPressureSetpointPa(v); break;
+            case FIRING: sim.plant().setFiringManual(v); break;
+            case SETPOINT: sim.firmware().operator().setLevelSetpoint(v); break;
+            case OUTPUT: sim.firmware().operator().setManualOutput(v); break;
+            default: break;
+        }
+    }
+
+    private double current(Action.Input in) {
+        switch (in) {
+            case STEAM_DEMAND: return sim.steamDemandFrac();
+            case FEED_TEMP: return sim.plant().feedTempK();
+            case PRESSURE_SETPOINT: return sim.pressureSetpointPa();
+            case FIRING: return sim.plant().firingFrac();
+            case SETPOINT: return sim.firmware().status().levelSetpointM;
+            case OUTPUT: return sim.firmware().status().valveDemandFrac;
+            default: return 0.0;
+        }
+    }
+
+    @Override
+    public void scan() {
+        double t = sim.timeS();
+        while (nextScripted < scripted.size() && scripted.get(nextScripted).atS() <= t + TIME_EPS_S) {
+            run(scripted.get(nextScripted++), t);
+        }
+        for (int i = 0; i < ramp.length; i++) {
+            Action a = ramp[i];
+            if (a != null) {
+                double x = Math.min(1.0, (t - a.atS()) / a.overS());
+                set(a.input(), rampFrom[i] + (a.value() - rampFrom[i]) * x);
+                if (x >= 1.0) {
+                    ramp[i] = null;
+                }
+            }
+        }
+        sim.scan();
+    }
+
+    @Override
+    public void fill(LiveSnapshot s) {
+        Frame f = sim.frame();
+        FirmwareStatus st = sim.firmware().status();
+        Plant p = sim.plant();
+        s.tS = f.tS;
+        s.levelM = f.get(Channel.DRUM_LEVEL);
+        s.levelIndicatedM = f.get(Channel.MEASURED_LEVEL);
+        s.levelSetpointM = f.get(Channel.SETPOINT);
+        s.steamFlowKgS = f.get(Channel.STEAM_FLOW);
+        s.feedFlowKgS = f.get(Channel.FEED_FLOW);
+        s.steamFlowMeasuredKgS = f.get(Channel.STEAM_FLOW_MEASURED);
+        s.feedFlowMeasuredKgS = f.get(Channel.FEED_FLOW_MEASURED);
+        s.feedFlowSetpointKgS = st.mode == Mode.THREE_ELEMENT && st.auto ? f.get(Channel.FEED_FLOW_SETPOINT) : Double.NaN;
+        s.valveDemandFrac = f.get(Channel.VALVE_DEMAND);
+        s.valvePositionFrac = f.get(Channel.FEED_VALVE);
+        s.drumPressurePa = f.get(Channel.DRUM_PRESSURE);
+        s.feedTempK = f.get(Channel.FEED_TEMP);
+        s.feedPressurePa = f.get(Channel.FEED_PRESSURE);
+        s.firingFrac = f.get(Channel.FIRING);
+        s.steamDemandFrac = f.get(Channel.STEAM_DEMAND);
+        s.pumpARunning = f.get(Channel.PUMP_A_RUNNING) >= 0.5;
+        s.pumpBRunning = f.get(Channel.PUMP_B_RUNNING) >= 0.5;
+        s.burnerOn = f.get(Channel.BURNER_ON) >= 0.5;
+        s.fuelCutoff = f.get(Channel.FUEL_CUTOFF) >= 0.5;
+        s.plantInvalid = p.invalid();
+        s.mode = f.modeLabel;
+        s.auto = f.get(Channel.AUTO) >= 0.5;
+        for (int i = 0; i < s.active.length; i++) {
+            s.active[i] = interlocks.active(i);
+            s.latched[i] = interlocks.latched(i);
+            s.acknowledged[i] = interlocks.acknowledged(i);
+            s.bypassed[i] = interlocks.bypassed(i);
+            s.trip[i] = interlocks.isTrip(i);
+            s.bypassLeftS[i] = interlocks.bypassed(i) ? Math.max(0, interlocks.bypassEndS(i) - f.tS) : Double.NaN;
+        }
+        s.firstOut = interlocks.firstOut();
+    }
+
+    @Override
+    public void drainEvents(Sink sink) {
+        for (Object[] e : pending) {
+            sink.accept((Double) e[0], (String) e[1], (String) e[2], (String) e[3]);
+        }
+        pending.clear();
+    }
+
+    /** A shipped name stays a name; a file path becomes absolute so the saved file works anywhere. */
+    private static String reference(String asWritten, String ext, java.nio.file.Path resolved) {
+        boolean pathLike = asWritten.contains("/") || asWritten.contains("\\") || asWritten.endsWith(ext);
+        return pathLike ? resolved.toAbsolutePath().normalize().toString() : asWritten;
+    }
+
+    @Override
+    public List<String> scenarioLines() {
+        double dur = Math.max(1.0, Math.ceil(sim.timeS() - sim.scanPeriodS() + 1e-9));
+        List<String> l = new ArrayList<>();
+        l.add("# Saved from the drumloop live page at t = " + LiveAction.fmt(sim.timeS()) + " s.");
+        l.add("# Replays the session: drumloop run FILE. Expectations of a scenario the session started");
+        l.add("# from are not copied; add your own 'expect' lines.");
+        l.add("title     " + ("Live session".equals(scenario.title()) ? "Live session" : "Live session from " + scenario.title()));
+        l.add("plant     " + reference(scenario.plant(), ".plant", setup.plantPath()));
+        l.add("tuning    " + reference(scenario.tuning(), ".tuning", setup.tuningPath()));
+        l.add("seed      " + scenario.seed());
+        l.add("load      " + LiveAction.fmt(scenario.initialLoadFrac() * 100) + " %");
+        l.add("duration  " + LiveAction.fmt(dur) + " s");
+        l.addAll(applied);
+        return l;
+    }
+}
