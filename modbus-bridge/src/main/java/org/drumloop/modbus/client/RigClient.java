@@ -69,6 +69,9 @@ public final class RigClient implements ProcessIo, AutoCloseable {
     private boolean outputsValid;
     private long outputsSeq;
 
+    private final int[] regs = new int[Math.max(Modbus.MAX_READ_BITS, Modbus.MAX_READ_REGISTERS)];
+    private boolean everConnected;
+    private long writtenSeq;
     private volatile boolean running;
     private volatile Thread poller;
 
@@ -169,63 +172,107 @@ public final class RigClient implements ProcessIo, AutoCloseable {
         }
     }
 
+    /**
+     * Lockstep use, without the poll thread: write the outputs handed over since the last call,
+     * then read every input batch, on the calling thread. It waits for the round trips, so it is
+     * for runs paced by the bench (faster than real time, tests), never inside a live scan.
+     */
+    public void pollOnce() {
+        if (poller != null) {
+            throw new IllegalStateException("the poll thread is running; pollOnce is for lockstep use");
+        }
+        if (!link.isConnected() && !connectOnce()) {
+            return;
+        }
+        writePending();
+        readAll();
+    }
+
+    /**
+     * Lockstep use, without the poll thread: write the outputs handed over since the last call, on
+     * the calling thread (waits for the round trips).
+     */
+    public void flushOutputs() {
+        if (poller != null) {
+            throw new IllegalStateException("the poll thread is running; flushOutputs is for lockstep use");
+        }
+        if (link.isConnected() || connectOnce()) {
+            writePending();
+        }
+    }
+
+    private boolean connectOnce() {
+        try {
+            link.connect();
+            if (everConnected) {
+                stats.reconnect();
+                LOG.info("{}: reconnected", link.describe());
+            }
+            everConnected = true;
+            return true;
+        } catch (LinkException e) {
+            LOG.debug("{}: {}", link.describe(), e.getMessage());
+            return false;
+        }
+    }
+
+    private void readAll() {
+        for (Batch b : readBatches) {
+            if (!link.isConnected()) {
+                break;
+            }
+            if (transact(b, regs, false)) {
+                store(b, regs);
+            }
+        }
+    }
+
+    /** Write all outputs if the scan handed over new ones since the last write. */
+    private void writePending() {
+        long seq;
+        synchronized (lock) {
+            seq = outputsValid ? outputsSeq : 0;
+        }
+        if (seq == writtenSeq || !link.isConnected()) {
+            return;
+        }
+        writtenSeq = seq;
+        for (Batch b : writeBatches) {
+            if (!link.isConnected()) {
+                break;
+            }
+            encode(b, regs);
+            transact(b, regs, true);
+        }
+    }
+
+    private boolean outputsPending() {
+        synchronized (lock) {
+            return outputsValid && outputsSeq != writtenSeq;
+        }
+    }
+
     private void pollLoop() {
-        int[] regs = new int[Math.max(Modbus.MAX_READ_BITS, Modbus.MAX_READ_REGISTERS)];
         double backoffS = opts.backoffMinS();
-        boolean everConnected = false;
         long periodNs = (long) (opts.pollPeriodS() * 1e9);
-        long writtenSeq = 0;
         long next = System.nanoTime();
         while (running) {
             if (!link.isConnected()) {
-                try {
-                    link.connect();
-                    if (everConnected) {
-                        stats.reconnect();
-                        LOG.info("{}: reconnected", link.describe());
-                    }
-                    everConnected = true;
-                    backoffS = opts.backoffMinS();
-                } catch (LinkException e) {
-                    LOG.debug("{}: {}", link.describe(), e.getMessage());
+                if (!connectOnce()) {
                     park((long) (backoffS * 1e9));
                     backoffS = Math.min(opts.backoffMaxS(), backoffS * 2);
                     continue;
                 }
+                backoffS = opts.backoffMinS();
             }
             long now = System.nanoTime();
             if (now - next >= 0) {
                 next = now + periodNs;
-                for (Batch b : readBatches) {
-                    if (!running || !link.isConnected()) {
-                        break;
-                    }
-                    if (transact(b, regs, false)) {
-                        store(b, regs);
-                    }
-                }
+                readAll();
             }
-            long seq;
-            synchronized (lock) {
-                seq = outputsValid ? outputsSeq : 0;
-            }
-            if (seq != writtenSeq && link.isConnected()) {
-                writtenSeq = seq;
-                for (Batch b : writeBatches) {
-                    if (!running || !link.isConnected()) {
-                        break;
-                    }
-                    encode(b, regs);
-                    transact(b, regs, true);
-                }
-            }
+            writePending();
             long wait = next - System.nanoTime();
-            if (wait > 0 && running) {
-                synchronized (lock) {
-                    if (outputsValid && outputsSeq != writtenSeq) {
-                        continue;
-                    }
-                }
+            if (wait > 0 && running && !outputsPending()) {
                 LockSupport.parkNanos(this, wait);
             }
         }
