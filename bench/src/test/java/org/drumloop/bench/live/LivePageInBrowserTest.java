@@ -95,7 +95,7 @@ class LivePageInBrowserTest {
             assertEquals("MANUAL", shown.get("auto"));
 
             byte[] png = web.screenshotPng();
-            Path shot = targetDir().resolve("live-page.png");
+            Path shot = targetDir().resolve("live-page-test-drum.png");
             Files.write(shot, png);
             assertNonBlankPng(png);
 
