@@ -296,8 +296,14 @@ public final class Plant {
             updateFeedProperties(header);
             double lo = 0;
             double hi = 1;
+            double minFlow = feed.solve(pPa, 1e-12, 1, 0, rhoFeed) * rhoFeed;
             if (feed.solve(pPa, 1, 1, 0, rhoFeed) * rhoFeed < qfKgS) {
                 u = 1;
+            } else if (qfKgS <= 0 || qfKgS < 0.5 * minFlow) {
+                // below half the valve's smallest controllable flow: closer to shut than open
+                u = 0;
+            } else if (qfKgS <= minFlow) {
+                u = 1e-12;
             } else {
                 for (int i = 0; i < 60; i++) {
                     double mid = 0.5 * (lo + hi);
