@@ -240,4 +240,32 @@ class PlantFaultTest {
         assertTrue(events.contains("safety_valve_reseat"));
         assertEquals(0, plant.safetyValveFlowKgS(), 0.0);
     }
+    @Test
+    void pressureFallingToAtmosphericIsClampedAndReported() {
+        plant.setFiringManual(0);
+        plant.setSteamFlowOverrideKgS(plant.steamFlowKgS());
+        plant.setFeedFlowOverrideKgS(plant.feedFlowKgS());
+        for (int i = 0; i < 40_000 && !events.contains("pressure_low"); i++) {
+            plant.step(DT_S);
+        }
+        assertTrue(events.contains("pressure_low"), events.toString());
+        assertTrue(events.contains("drum_flooded"), "flashing swells the drum full on the way: " + events);
+        run(60);
+        assertEquals(Plant.MIN_PRESSURE_PA, plant.drumPressurePa(), 0.0, "clamped just above one atmosphere");
+        assertTrue(plant.invalid() && Double.isFinite(plant.levelM()));
+    }
+
+    @Test
+    void colderFeedShrinksTheLevel() {
+        // a sudden drop in feed temperature collapses bubbles, so the level shrinks at first
+        // (check-values §6, from memory, unverified; also what the model's condensation term gives)
+        plant.setFeedFlowOverrideKgS(plant.feedFlowKgS());
+        plant.setSteamFlowOverrideKgS(plant.steamFlowKgS());
+        plant.setFiringManual(plant.firingFrac());
+        double hf0 = plant.feedEnthalpyJKg();
+        plant.setFeedTemperatureK(40 + 273.15);
+        run(30);
+        assertTrue(plant.feedEnthalpyJKg() < hf0 - 150e3, "feed enthalpy follows the temperature (IF97 region 1)");
+        assertTrue(plant.levelM() < -0.02, "level shrinks: " + plant.levelM());
+    }
 }
