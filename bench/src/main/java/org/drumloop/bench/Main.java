@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.util.ArrayList;
 import java.util.List;
 
+import org.drumloop.bench.cli.BumpCommand;
 import org.drumloop.bench.cli.CheckCommand;
 import org.drumloop.bench.cli.DemoCommand;
 import org.drumloop.bench.cli.InterlocksCommand;
@@ -31,7 +32,7 @@ import picocli.CommandLine.Option;
             "2:bad input (file:line: word: message on stderr) or bad option",
             "3:records could not be written",
             "4:internal error"},
-        subcommands = {DemoCommand.class, RunCommand.class, CheckCommand.class, InterlocksCommand.class,
+        subcommands = {DemoCommand.class, RunCommand.class, CheckCommand.class, InterlocksCommand.class, BumpCommand.class,
             PerfCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     /** Subcommands of other parts of the bench, registered when present on the class path. */

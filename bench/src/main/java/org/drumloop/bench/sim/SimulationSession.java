@@ -63,6 +63,9 @@ public final class SimulationSession {
         this.frame = new Frame(interlocks.size());
         this.soeSink = (tS, scan, tag, kind, message) -> sink.event(tS, tag, kind.name(), message);
         plant.setEventListener((tS, tag, message) -> sink.event(tS, tag, "PLANT", message));
+        // Start bumpless from the plant's balanced state: the controller's manual output (which the
+        // automatic blocks initialise from) is the valve position the plant settled at.
+        firmware.operator().setManualOutput(plant.feedValvePositionFrac());
     }
 
     public void setEventSink(EventSink s) { this.sink = s == null ? (t, tag, kind, msg) -> { } : s; }
