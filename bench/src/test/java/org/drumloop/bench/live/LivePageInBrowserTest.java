@@ -17,6 +17,8 @@ import java.util.HashSet;
 import java.util.Map;
 import java.util.Set;
 import javax.imageio.ImageIO;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -31,7 +33,22 @@ class LivePageInBrowserTest {
     static final double SPEED = 10.0;
 
     @TempDir
-    Path tmp;
+    static Path tmp;
+
+    /** One browser for the class: starting chromium costs seconds on a busy machine. */
+    static WebDriverClient web;
+
+    @BeforeAll
+    static void startBrowser() throws Exception {
+        web = new WebDriverClient(tmp.resolve("chromium-profile"), 1400, 1300);
+    }
+
+    @AfterAll
+    static void stopBrowser() throws Exception {
+        if (web != null) {
+            web.close();
+        }
+    }
 
     static Path targetDir() throws Exception {
         String base = System.getProperty("basedir");
@@ -49,8 +66,7 @@ class LivePageInBrowserTest {
     void anOperatorRunsTheLoopFromThePageAndSeesWhatTheLoopComputed() throws Exception {
         FakeLiveSession session = new FakeLiveSession(false);
         LiveLoop loop = new LiveLoop(session, SPEED);
-        try (LiveServer server = LiveServer.onLoopback(loop, 0);
-             WebDriverClient web = new WebDriverClient(tmp.resolve("chromium-profile"), 1400, 1300)) {
+        try (LiveServer server = LiveServer.onLoopback(loop, 0)) {
             loop.start();
             server.start();
             web.navigate(server.uri().toString());
@@ -116,7 +132,7 @@ class LivePageInBrowserTest {
         LiveLoop loop1 = new LiveLoop(first, SPEED);
         LiveServer server1 = LiveServer.onLoopback(loop1, 0);
         int port = server1.port();
-        try (WebDriverClient web = new WebDriverClient(tmp.resolve("chromium-profile"), 1200, 900)) {
+        try {
             loop1.start();
             server1.start();
             web.navigate(server1.uri().toString());
@@ -146,8 +162,7 @@ class LivePageInBrowserTest {
     void onHardwareABannerThatCannotBeClosedShowsAndEveryWriteAsksFirst() throws Exception {
         FakeLiveSession session = new FakeLiveSession(true);
         LiveLoop loop = new LiveLoop(session, SPEED);
-        try (LiveServer server = LiveServer.onLoopback(loop, 0);
-             WebDriverClient web = new WebDriverClient(tmp.resolve("chromium-profile"), 1200, 900)) {
+        try (LiveServer server = LiveServer.onLoopback(loop, 0)) {
             loop.start();
             server.start();
             web.navigate(server.uri().toString());
