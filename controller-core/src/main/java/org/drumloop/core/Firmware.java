@@ -179,10 +179,11 @@ public final class Firmware implements ScanBody {
         boolean pOk = pressureIn.usable();
         double pDrumPa = pOk ? pressureIn.valueSi() : cfg.designPressurePa();
         Quality pQ = pOk ? pressureIn.quality() : Quality.UNCERTAIN;
+        levelComp.setPressure(pDrumPa);
         for (int i = 0; i < TX; i++) {
             AnalogInput a = levelIn[i];
             a.update(in, tS, dtS);
-            ilIn.levelM[i] = levelComp.levelM(a.valueSi(), pDrumPa);
+            ilIn.levelM[i] = levelComp.levelM(a.valueSi());
             Quality q = a.quality();
             ilIn.levelQuality[i] = q == Quality.BAD ? Quality.BAD : Ne43.worst(q, pQ);
         }
@@ -192,7 +193,7 @@ public final class Firmware implements ScanBody {
         boolean levelOk = median.quality() != Quality.BAD;
 
         steamDpIn.update(in, tS, dtS);
-        double steamKgS = steamComp.flowKgS(steamDpIn.valueSi(), SteamTables.saturatedVapourDensity(pDrumPa));
+        double steamKgS = steamComp.flowKgS(steamDpIn.valueSi(), levelComp.vapourDensity());
         Quality steamQ = steamDpIn.quality() == Quality.BAD ? Quality.BAD : Ne43.worst(steamDpIn.quality(), pQ);
 
         feedTempIn.update(in, tS, dtS);

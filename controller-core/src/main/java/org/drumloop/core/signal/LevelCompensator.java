@@ -21,6 +21,10 @@ public final class LevelCompensator {
     private final double tapSpanM;
     private final double nwlAboveLowerTapM;
     private final double refLegTempK;
+    private double cachedPressurePa = Double.NaN;
+    private double rhoL;
+    private double rhoV;
+    private double rhoRef;
 
     /**
      * @param tapSpanM           vertical distance H between the tappings [m] (positive)
@@ -48,11 +52,30 @@ public final class LevelCompensator {
 
     /** Compensated level relative to NWL [m] from the transmitter dp [Pa] and the drum pressure [Pa abs]. */
     public double levelM(double dpPa, double drumPressurePa) {
-        double rhoL = SteamTables.saturatedLiquidDensity(drumPressurePa);
-        double rhoV = SteamTables.saturatedVapourDensity(drumPressurePa);
-        double rhoRef = SteamTables.liquidDensity(refLegTempK, drumPressurePa);
+        setPressure(drumPressurePa);
+        return levelM(dpPa);
+    }
+
+    /**
+     * Look the densities up for a drum pressure [Pa abs] once, for several transmitters in the same
+     * scan ({@link #levelM(double)}); a repeated pressure costs nothing.
+     */
+    public void setPressure(double drumPressurePa) {
+        if (drumPressurePa != cachedPressurePa) {
+            rhoL = SteamTables.saturatedLiquidDensity(drumPressurePa);
+            rhoV = SteamTables.saturatedVapourDensity(drumPressurePa);
+            rhoRef = SteamTables.liquidDensity(refLegTempK, drumPressurePa);
+            cachedPressurePa = drumPressurePa;
+        }
+    }
+
+    /** Compensated level relative to NWL [m] at the pressure of the last {@link #setPressure}. */
+    public double levelM(double dpPa) {
         return heightM(dpPa, tapSpanM, rhoRef, rhoL, rhoV) - nwlAboveLowerTapM;
     }
+
+    /** Saturated vapour density [kg/m3] at the pressure of the last {@link #setPressure}. */
+    public double vapourDensity() { return rhoV; }
 
     public double tapSpanM() { return tapSpanM; }
 
