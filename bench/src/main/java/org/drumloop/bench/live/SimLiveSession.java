@@ -6,17 +6,14 @@ import java.util.List;
 import org.drumloop.bench.expect.Channel;
 import org.drumloop.bench.expect.Frame;
 import org.drumloop.bench.record.RunSummary;
-import org.drumloop.bench.scenario.Action;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.scenario.ScenarioParser;
 import org.drumloop.bench.sim.ScenarioRunner;
 import org.drumloop.bench.sim.SimulationSession;
 import org.drumloop.core.FirmwareStatus;
 import org.drumloop.core.Mode;
-import org.drumloop.core.OperatorCommands;
 import org.drumloop.core.config.ConfigException;
 import org.drumloop.core.safety.InterlockSet;
-import org.drumloop.plant.Fault;
 import org.drumloop.plant.Plant;
 import org.drumloop.plant.PlantConfig;
 
@@ -35,10 +32,6 @@ import org.drumloop.plant.PlantConfig;
  * its expectations are not evaluated live.
  */
 public final class SimLiveSession implements LiveSession {
-    /** The scenario runner applies an action when its time is within this of the scan time. */
-    static final double TIME_EPS_S = 0.005;
-    /** Statements are checked as part of a run this long (the parser's limit: 7 days). */
-    static final double CHECK_DURATION_S = 7 * 86_400.0;
     private static final List<LiveInfo.Transmitter> TRANSMITTERS = List.of(
             new LiveInfo.Transmitter("level_tx_a", "level A (dp)", "Pa"),
             new LiveInfo.Transmitter("level_tx_b", "level B (dp)", "Pa"),
@@ -48,23 +41,14 @@ public final class SimLiveSession implements LiveSession {
             new LiveInfo.Transmitter("pressure_tx", "drum pressure", "Pa"),
             new LiveInfo.Transmitter("feed_temp_tx", "feed temperature", "K"),
             new LiveInfo.Transmitter("feed_pressure_tx", "feed pump discharge pressure", "Pa"));
-    private static final Fault.Kind[] TRANSMITTER_FAULTS = {
-        Fault.Kind.STUCK, Fault.Kind.DRIFT, Fault.Kind.BIAS, Fault.Kind.FAIL_LOW, Fault.Kind.FAIL_HIGH,
-        Fault.Kind.NOISE_BURST,
-    };
 
     private final Scenario scenario;
     private final ScenarioRunner.Setup setup;
     private final SimulationSession sim;
     private final InterlockSet interlocks;
     private final LiveInfo info;
-    private final List<Action> scripted;
-    private int nextScripted;
-    /** One ramp at most per input, as in the runner (a new set or ramp cancels the old one). */
-    private final Action[] ramp = new Action[Action.Input.values().length];
-    private final double[] rampFrom = new double[Action.Input.values().length];
-    private final List<String> applied = new ArrayList<>();
     private final List<Object[]> pending = new ArrayList<>();
+    private final LiveActions actions;
 
     /** Set up plant, tuning, seed and initial load as {@code drumloop run} does for {@code sc}. */
     public SimLiveSession(Scenario sc) throws ConfigException, IOException {
@@ -73,7 +57,15 @@ public final class SimLiveSession implements LiveSession {
         this.sim = new SimulationSession(setup.plant(), setup.tuning(), sc.seed(), sc.initialLoadFrac());
         this.interlocks = sim.firmware().interlocks();
         ScenarioRunner.bind(sc, interlocks);
-        this.scripted = sc.actions();
+        this.actions = new LiveActions(new LiveActions.Loop() {
+            @Override public Plant plant() { return sim.plant(); }
+            @Override public org.drumloop.core.Firmware firmware() { return sim.firmware(); }
+            @Override public double timeS() { return sim.timeS(); }
+            @Override public void setSteamDemand(double frac) { sim.setSteamDemand(frac); }
+            @Override public double steamDemandFrac() { return sim.steamDemandFrac(); }
+            @Override public void setPressureSetpointPa(double pPa) { sim.setPressureSetpointPa(pPa); }
+            @Override public double pressureSetpointPa() { return sim.pressureSetpointPa(); }
+        }, sc.actions(), pending);
         sim.setEventSink((tS, tag, kind, message) -> pending.add(new Object[] {tS, tag, kind, message}));
         PlantConfig pc = setup.plant();
         List<LiveInfo.Line> lines = new ArrayList<>();
@@ -95,7 +87,7 @@ public final class SimLiveSession implements LiveSession {
             throws ConfigException, IOException {
         List<String> text = List.of("title     Live session", "plant     " + plant, "tuning    " + tuning,
                 "seed      " + seed, "load      " + LiveAction.fmt(loadFrac * 100) + " %",
-                "duration  " + LiveAction.fmt(CHECK_DURATION_S) + " s");
+                "duration  " + LiveAction.fmt(LiveActions.CHECK_DURATION_S) + " s");
         return new SimLiveSession(ScenarioParser.parse("live", null, text));
     }
 
@@ -115,125 +107,17 @@ public final class SimLiveSession implements LiveSession {
 
     @Override
     public void check(LiveAction action) {
-        parse(0.0, action.scenarioStatement());
-    }
-
-    /** Read one statement back with the bench's scenario parser, as a replay will. */
-    private static Action parse(double atS, String statement) {
-        List<String> text = List.of("title live", "duration " + LiveAction.fmt(CHECK_DURATION_S) + " s",
-                "at " + LiveAction.fmt(atS) + " s " + statement);
-        try {
-            return ScenarioParser.parse("live", null, text).actions().get(0);
-        } catch (ConfigException e) {
-            throw new IllegalArgumentException(statement + ": " + e.getMessage(), e);
-        }
+        LiveActions.parse(0.0, action.scenarioStatement());
     }
 
     @Override
     public void apply(LiveAction action) {
-        double t = sim.timeS();
-        Action a;
-        try {
-            a = parse(t, action.scenarioStatement());
-        } catch (IllegalArgumentException e) {
-            pending.add(new Object[] {t, "live", "INFO", "refused: " + e.getMessage()});
-            return;
-        }
-        run(a, t);
-    }
-
-    private void run(Action a, double t) {
-        applied.add(a.text());
-        pending.add(new Object[] {t, "scenario", "ACTION", a.text()});
-        OperatorCommands op = sim.firmware().operator();
-        Plant p = sim.plant();
-        switch (a.type()) {
-            case SET:
-                ramp[a.input().ordinal()] = null;
-                set(a.input(), a.value());
-                break;
-            case RAMP:
-                ramp[a.input().ordinal()] = a;
-                rampFrom[a.input().ordinal()] = current(a.input());
-                break;
-            case MODE:
-                op.requestMode(Mode.byLabel(a.label()));
-                break;
-            case AUTO:
-                op.requestAuto(true);
-                break;
-            case MANUAL:
-                op.requestAuto(false);
-                break;
-            case RESET:
-                op.reset();
-                break;
-            case ACKNOWLEDGE:
-                op.acknowledge(a.target());
-                break;
-            case BYPASS:
-                op.bypass(a.target(), a.reason(), a.value());
-                break;
-            case FAULT:
-                p.inject(new Fault(Fault.Kind.valueOf(a.label()), a.target(), a.value(), a.overS()));
-                break;
-            case CLEAR:
-                if ("all".equals(a.target())) {
-                    p.clearAll();
-                } else if (a.label() == null) {
-                    for (Fault.Kind k : TRANSMITTER_FAULTS) {
-                        p.clear(k, a.target());
-                    }
-                } else {
-                    p.clear(Fault.Kind.valueOf(a.label()), a.target());
-                }
-                break;
-            default:
-                pending.add(new Object[] {t, "live", "INFO", "not available on the live page: " + a.text()});
-                break;
-        }
-    }
-
-    private void set(Action.Input in, double v) {
-        switch (in) {
-            case STEAM_DEMAND: sim.setSteamDemand(v); break;
-            case FEED_TEMP: sim.plant().setFeedTemperatureK(v); break;
-            case PRESSURE_SETPOINT: sim.setPressureSetpointPa(v); break;
-            case FIRING: sim.plant().setFiringManual(v); break;
-            case SETPOINT: sim.firmware().operator().setLevelSetpoint(v); break;
-            case OUTPUT: sim.firmware().operator().setManualOutput(v); break;
-            default: break;
-        }
-    }
-
-    private double current(Action.Input in) {
-        switch (in) {
-            case STEAM_DEMAND: return sim.steamDemandFrac();
-            case FEED_TEMP: return sim.plant().feedTempK();
-            case PRESSURE_SETPOINT: return sim.pressureSetpointPa();
-            case FIRING: return sim.plant().firingFrac();
-            case SETPOINT: return sim.firmware().status().levelSetpointM;
-            case OUTPUT: return sim.firmware().status().valveDemandFrac;
-            default: return 0.0;
-        }
+        actions.apply(action);
     }
 
     @Override
     public void scan() {
-        double t = sim.timeS();
-        while (nextScripted < scripted.size() && scripted.get(nextScripted).atS() <= t + TIME_EPS_S) {
-            run(scripted.get(nextScripted++), t);
-        }
-        for (int i = 0; i < ramp.length; i++) {
-            Action a = ramp[i];
-            if (a != null) {
-                double x = Math.min(1.0, (t - a.atS()) / a.overS());
-                set(a.input(), rampFrom[i] + (a.value() - rampFrom[i]) * x);
-                if (x >= 1.0) {
-                    ramp[i] = null;
-                }
-            }
-        }
+        actions.beforeScan();
         sim.scan();
     }
 
@@ -303,7 +187,7 @@ public final class SimLiveSession implements LiveSession {
         l.add("seed      " + scenario.seed());
         l.add("load      " + LiveAction.fmt(scenario.initialLoadFrac() * 100) + " %");
         l.add("duration  " + LiveAction.fmt(dur) + " s");
-        l.addAll(applied);
+        l.addAll(actions.applied());
         return l;
     }
 }
