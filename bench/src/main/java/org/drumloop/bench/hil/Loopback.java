@@ -65,6 +65,12 @@ public final class Loopback {
 
     public static Result run(ChannelMap map, PlantConfig plantConfig, FirmwareConfig fwConfig, Options o,
                              PrintWriter progress) throws IOException, InterruptedException {
+        return run(map, plantConfig, fwConfig, o, progress, port -> { });
+    }
+
+    /** As {@link #run(ChannelMap, PlantConfig, FirmwareConfig, Options, PrintWriter)}, telling {@code onPort} the served port first. */
+    public static Result run(ChannelMap map, PlantConfig plantConfig, FirmwareConfig fwConfig, Options o,
+                             PrintWriter progress, java.util.function.IntConsumer onPort) throws IOException, InterruptedException {
         Plant plant = new Plant(plantConfig, o.seed());
         plant.initSteadyState(o.loadFrac());
         Firmware firmware = new Firmware(fwConfig);
@@ -79,6 +85,7 @@ public final class Loopback {
              RigClient client = RigClient.tcp(map, new TcpEndpoint("127.0.0.1", server.port()), linkOpts);
              Trend trend = new Trend(o.out() == null ? null : o.out().resolve("trend.csv"), fwConfig.levelSetpointM(), o.stepAtS());
              Events events = new Events(o.out() == null ? null : o.out().resolve("events.csv"), progress)) {
+            onPort.accept(server.port());
             PlantLoop loop = new PlantLoop(plant, server, o.loadFrac());
             loop.scheduleLoadStep(o.stepAtS(), o.stepToFrac());
             loop.publish(0.0);

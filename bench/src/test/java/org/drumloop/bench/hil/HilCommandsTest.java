@@ -1,0 +1,122 @@
+package org.drumloop.bench.hil;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.TimeUnit;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+import org.drumloop.bench.ExitCode;
+import org.drumloop.bench.Main;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The three Modbus run modes end to end through the {@code drumloop} command line, on loopback
+ * with port 0: loopback (lockstep), serve-plant with drive-rig driving it in real time, and the
+ * file checks that stop a run before it starts.
+ */
+class HilCommandsTest {
+    private static final Path MAP = Path.of("..", "config", "maps", "aux-4-20ma.csv");
+    private static final Path PLANT = Path.of("..", "config", "plants", "aux-boiler.plant");
+    private static final Path TUNING = Path.of("..", "config", "tuning", "default.tuning");
+
+    @TempDir
+    Path dir;
+
+    private static final class Run {
+        final StringWriter out = new StringWriter();
+        final StringWriter err = new StringWriter();
+
+        int exec(String... args) {
+            return Main.execute(new PrintWriter(out, true), new PrintWriter(err, true), args);
+        }
+    }
+
+    @Test
+    void theCommandsAreRegistered() {
+        List<String> names = Main.subcommandNames();
+        assertTrue(names.containsAll(List.of("serve-plant", "drive-rig", "loopback")), names.toString());
+    }
+
+    @Test
+    void loopbackRunsTheWholeChainAndWritesItsRecords() throws Exception {
+        Run r = new Run();
+        int code = r.exec("loopback", "--speed", "max", "--duration", "20", "--map", MAP.toString(),
+                "--plant", PLANT.toString(), "--tuning", TUNING.toString(), "--out", dir.toString());
+        assertEquals(ExitCode.OK, code, r.err.toString());
+        // 20 s at the default tuning's 100 ms scan period = 200 scans (tuning file, scan_period)
+        assertTrue(r.out.toString().contains("scans 200,"), r.out.toString());
+        assertTrue(Files.exists(dir.resolve("trend.csv")));
+        assertTrue(Files.exists(dir.resolve("events.csv")));
+        assertEquals(3, Files.readAllLines(dir.resolve("link-stats.csv")).size());
+    }
+
+    @Test
+    void aBrokenMapStopsTheRunWithEveryProblemLocated() throws Exception {
+        Path bad = dir.resolve("bad.csv");
+        Files.write(bad, List.of("signal,direction,table,unit,address,type",
+                "level_dp_a,to_controller,input_register,1,30001,int16",
+                "nosuch,to_controller,input_register,1,1,int16"));
+        Run r = new Run();
+        int code = r.exec("loopback", "--speed", "max", "--duration", "1", "--map", bad.toString());
+        assertEquals(ExitCode.BAD_INPUT, code);
+        String err = r.err.toString();
+        assertTrue(err.contains(bad + ":2: address: '30001' looks like a 1-based 3xxxx reference"), err);
+        assertTrue(err.contains(bad + ":3: signal: unknown signal 'nosuch'"), err);
+    }
+
+    @Test
+    void aMapWithoutTheSignalsTheModeNeedsIsRefused() throws Exception {
+        Path thin = dir.resolve("thin.csv");
+        Files.write(thin, List.of("signal,direction,table,unit,address,type,raw_lo,raw_hi,eng_lo,eng_hi,eng_unit",
+                "level_dp_a,to_controller,input_register,1,0,int16,0,27648,4,20,mA"));
+        Run r = new Run();
+        int code = r.exec("drive-rig", "--map", thin.toString(), "--tcp", "127.0.0.1:1", "--duration", "1");
+        assertEquals(ExitCode.BAD_INPUT, code);
+        assertTrue(r.out.toString().contains("CAUTION"), "the banner comes first");
+        assertTrue(r.err.toString().contains("feed_valve_demand: this mode needs the signal"), r.err.toString());
+    }
+
+    @Test
+    void driveRigControlsAServedPlantInRealTime() throws Exception {
+        Run served = new Run();
+        CompletableFuture<Integer> plant = CompletableFuture.supplyAsync(() -> served.exec("serve-plant",
+                "--map", MAP.toString(), "--plant", PLANT.toString(), "--tcp", "127.0.0.1:0", "--duration", "6",
+                "--out", dir.resolve("plant").toString()));
+        Pattern bound = Pattern.compile("on tcp 127\\.0\\.0\\.1:(\\d+)");
+        int port = -1;
+        long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(20);
+        while (port < 0 && System.nanoTime() < end) {
+            Matcher m = bound.matcher(served.out.toString());
+            if (m.find()) {
+                port = Integer.parseInt(m.group(1));
+            } else {
+                java.util.concurrent.locks.LockSupport.parkNanos(10_000_000L);
+            }
+        }
+        assertTrue(port > 0, "serve-plant never said where it listens: " + served.out + served.err);
+
+        Run rig = new Run();
+        int code = rig.exec("drive-rig", "--map", MAP.toString(), "--tuning", TUNING.toString(),
+                "--tcp", "127.0.0.1:" + port, "--duration", "3", "--out", dir.resolve("rig").toString());
+        assertEquals(ExitCode.OK, code, rig.err.toString());
+        String out = rig.out.toString();
+        assertTrue(out.startsWith("*"), "the caution banner comes first");
+        assertTrue(out.contains("never connect to a live boiler") || out.contains("Never connect to a live boiler"), out);
+        List<String> stats = Files.readAllLines(dir.resolve("rig").resolve("link-stats.csv"));
+        String[] row = stats.get(1).split(",");
+        // columns: link,requests,ok,... (LinkStatistics.csvHeader); 3 s of polling at 50 ms gives tens of answers
+        assertTrue(Long.parseLong(row[2]) > 10, stats.toString());
+
+        assertEquals(ExitCode.OK, plant.get(30, TimeUnit.SECONDS).intValue(), served.err.toString());
+        assertTrue(Files.exists(dir.resolve("plant").resolve("link-stats.csv")));
+    }
+}
