@@ -71,7 +71,7 @@ class FirmwareConfigTest {
         // 2.5 %/(t/h) = 0.025 / (1000/3600) per kg/s
         assertEquals(0.025 * 3.6, d.feedSlave().kc(), 1e-12);
         FirmwareConfig ab = FirmwareConfig.load(AB160_TUNING);
-        assertEquals(50.0, ab.ratedSteamFlowKgS(), EXACT);
+        assertEquals(181.3 * 1000.0 / 3600.0, ab.ratedSteamFlowKgS(), EXACT);
         // 85 bara absolute = 8.5e6 Pa (definition)
         assertEquals(8.5e6, ab.designPressurePa(), 1e-6);
     }

@@ -34,6 +34,8 @@ public final class Pid {
     private double lastPv = Double.NaN;
     private double out;
     private boolean seeded;
+    private boolean inhibitUp;
+    private boolean inhibitDown;
 
     public Pid(PidParams params) {
         this.prm = params;
@@ -59,6 +61,16 @@ public final class Pid {
             }
         }
         this.prm = next;
+    }
+
+    /**
+     * Conditional integration for cascades: while a downstream stage is at a limit, the integral may
+     * not move the output further towards it ({@code up}: no increase, {@code down}: no decrease).
+     * Stays in force until changed; the caller sets it before each {@link #update}.
+     */
+    public void inhibitIntegration(boolean up, boolean down) {
+        inhibitUp = up;
+        inhibitDown = down;
     }
 
     /** Forget the history: the output becomes {@code outValue} held by the integral (bias). */
@@ -122,7 +134,11 @@ public final class Pid {
         st.out = u;
         st.limited = lim;
         if (Double.isFinite(p.tiS())) {
-            double next = integral + s * p.kc() * dtS / p.tiS() * (sp - pv);
+            double dI = s * p.kc() * dtS / p.tiS() * (sp - pv);
+            if ((dI > 0.0 && inhibitUp) || (dI < 0.0 && inhibitDown)) {
+                dI = 0.0;
+            }
+            double next = integral + dI;
             if (Double.isFinite(p.ttS())) {
                 // A gain h/Tt above 1 would overcorrect in one scan; cap it (reset completes in one scan).
                 double k = Math.min(dtS / p.ttS(), 1.0);

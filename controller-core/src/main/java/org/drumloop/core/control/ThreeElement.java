@@ -16,7 +16,9 @@ package org.drumloop.core.control;
  * <p>Bumpless changes: the blocks that are not in the loop track every scan. In single-element and
  * manual the master tracks {@code q_feed - feedforward}, so the feed setpoint equals the measured feed
  * flow, and the slave tracks the valve position; in three-element and manual the single-element
- * controller tracks the valve position. A forced valve position (interlock "close feed valve") makes
+ * controller tracks the valve position. While the slave output or the feed setpoint is at a limit the
+ * master does not integrate further that way (conditional integration), so a saturated valve does
+ * not wind up the level master. A forced valve position (interlock "close feed valve") makes
  * every block track it. Allocation-free.
  */
 public final class ThreeElement {
@@ -83,6 +85,12 @@ public final class ThreeElement {
             valveFrac = single.update(levelSpM, levelM, 0.0, dtS);
             trackCascade(levelSpM, levelM, feedKgS, valveFrac, dtS);
         } else {
+            // cascade anti-windup: while the slave (or the feed setpoint) sits at a limit the master
+            // may not integrate further in that direction (conditional integration)
+            PidParams sp = slave.params();
+            boolean slaveHigh = slave.out() >= sp.outMax() || feedSpKgS >= feedSpMaxKgS;
+            boolean slaveLow = slave.out() <= sp.outMin() || feedSpKgS <= 0.0;
+            master.inhibitIntegration(slaveHigh, slaveLow);
             masterOut = master.update(levelSpM, levelM, 0.0, dtS);
             feedSpKgS = clampFeed(masterOut + feedforwardKgS);
             valveFrac = slave.update(feedSpKgS, feedKgS, 0.0, dtS);

@@ -86,4 +86,23 @@ class ThreeElementTest {
         double u = te.update(ThreeElement.THREE, 0.0, 0.0, 2.0, 2.0, 0.5, Double.NaN, H_S);
         assertEquals(0.0, u, EXACT);
     }
+
+    @Test
+    void aSaturatedValveDoesNotWindUpTheLevelMaster() {
+        ThreeElement te = make();
+        te.update(ThreeElement.MANUAL, 0.0, 0.0, 2.0, 2.0, 0.9, Double.NaN, H_S);
+        // level 10 mm low (master P = 0.83 kg/s, inside its +/-1.4 limits) and feed flow stuck below
+        // its setpoint: the slave opens to its limit 1.0
+        for (int i = 0; i < 600; i++) {
+            te.update(ThreeElement.THREE, 0.0, -0.01, 2.0, 2.0, 0.5, Double.NaN, H_S);
+        }
+        assertEquals(1.0, te.valveFrac(), 0.0);
+        double held = te.master().integral();
+        for (int i = 0; i < 600; i++) {
+            te.update(ThreeElement.THREE, 0.0, -0.01, 2.0, 2.0, 0.5, Double.NaN, H_S);
+        }
+        // conditional integration: no further increase while the valve is at its limit (without it
+        // the integral would grow by Kc h/Ti e = 83*0.1/180*0.01 per scan, 0.28 kg/s over 600 scans)
+        assertEquals(held, te.master().integral(), 0.0);
+    }
 }
