@@ -10,8 +10,10 @@ import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import org.drumloop.bench.ConfigResolver;
 import org.drumloop.bench.ExitCode;
+import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.scenario.ScenarioParser;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.modbus.map.ChannelMap;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -64,8 +66,13 @@ public final class LiveCommand implements Callable<Integer> {
     double speed;
 
     @Option(names = "--loopback",
-            description = "run the firmware's I/O over Modbus TCP on 127.0.0.1 through the bridge (needs the Modbus loopback of this build)")
+            description = "run the firmware's I/O over Modbus TCP on 127.0.0.1: plant served by the bridge's image server,"
+                    + " firmware as master through the rig client, scan by scan")
     boolean loopback;
+
+    @Option(names = "--map", paramLabel = "NAME|FILE", defaultValue = "aux-4-20ma",
+            description = "channel map for --loopback (default aux-4-20ma)")
+    String map;
 
     @Override
     public Integer call() throws Exception {
@@ -84,11 +91,6 @@ public final class LiveCommand implements Callable<Integer> {
             err.println("--port: expected 0 to 65535, got " + port);
             return ExitCode.BAD_INPUT;
         }
-        if (loopback) {
-            err.println("--loopback: the Modbus loopback is not available to the live page in this build;"
-                    + " run 'drumloop loopback' for the Modbus self-test, or 'drumloop live' without --loopback");
-            return ExitCode.BAD_INPUT;
-        }
         InetAddress address;
         try {
             address = InetAddress.getByName(bind);
@@ -96,7 +98,7 @@ public final class LiveCommand implements Callable<Integer> {
             err.println("--bind: unknown address '" + bind + "'");
             return ExitCode.BAD_INPUT;
         }
-        SimLiveSession session;
+        LiveSession session;
         try {
             session = build();
         } catch (ConfigException e) {
@@ -122,6 +124,13 @@ public final class LiveCommand implements Callable<Integer> {
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
             }
+            if (session instanceof AutoCloseable) {
+                try {
+                    ((AutoCloseable) session).close();
+                } catch (Exception e) {
+                    // shutting down anyway
+                }
+            }
             stopped.countDown();
         }, "live-shutdown");
         Runtime.getRuntime().addShutdownHook(hook);
@@ -141,14 +150,24 @@ public final class LiveCommand implements Callable<Integer> {
         return ExitCode.OK;
     }
 
-    private SimLiveSession build() throws ConfigException, IOException {
+    private LiveSession build() throws ConfigException, IOException {
+        Scenario sc;
         if (scenario != null) {
             Path p = ConfigResolver.resolve(scenario, "scenarios", ".scenario", null);
             if (p == null) {
                 throw new ConfigException(scenario, 0, "--scenario", "no such scenario file or shipped scenario name");
             }
-            return new SimLiveSession(ScenarioParser.load(p));
+            sc = ScenarioParser.load(p);
+        } else {
+            sc = SimLiveSession.idleScenario(plant, tuning, loadPercent / 100.0, seed);
         }
-        return SimLiveSession.idle(plant, tuning, loadPercent / 100.0, seed);
+        if (!loopback) {
+            return new SimLiveSession(sc);
+        }
+        Path m = ConfigResolver.resolve(map, "maps", ".csv", null);
+        if (m == null) {
+            throw new ConfigException(map, 0, "--map", "no such channel map file or shipped map name");
+        }
+        return new LoopbackLiveSession(sc, ChannelMap.load(m));
     }
 }

@@ -43,7 +43,7 @@ public final class SimLiveSession implements LiveSession {
             new LiveInfo.Transmitter("feed_pressure_tx", "feed pump discharge pressure", "Pa"));
 
     private final Scenario scenario;
-    private final ScenarioRunner.Setup setup;
+    private final String[] refs;
     private final SimulationSession sim;
     private final InterlockSet interlocks;
     private final LiveInfo info;
@@ -53,7 +53,8 @@ public final class SimLiveSession implements LiveSession {
     /** Set up plant, tuning, seed and initial load as {@code drumloop run} does for {@code sc}. */
     public SimLiveSession(Scenario sc) throws ConfigException, IOException {
         this.scenario = sc;
-        this.setup = ScenarioRunner.setup(sc);
+        ScenarioRunner.Setup setup = ScenarioRunner.setup(sc);
+        this.refs = references(sc, setup);
         this.sim = new SimulationSession(setup.plant(), setup.tuning(), sc.seed(), sc.initialLoadFrac());
         this.interlocks = sim.firmware().interlocks();
         ScenarioRunner.bind(sc, interlocks);
@@ -85,10 +86,15 @@ public final class SimLiveSession implements LiveSession {
     /** A live session with no script: the default plant and tuning at the given load. */
     public static SimLiveSession idle(String plant, String tuning, double loadFrac, long seed)
             throws ConfigException, IOException {
+        return new SimLiveSession(idleScenario(plant, tuning, loadFrac, seed));
+    }
+
+    /** The scenario of a live session with no script. */
+    public static Scenario idleScenario(String plant, String tuning, double loadFrac, long seed) throws ConfigException {
         List<String> text = List.of("title     Live session", "plant     " + plant, "tuning    " + tuning,
                 "seed      " + seed, "load      " + LiveAction.fmt(loadFrac * 100) + " %",
                 "duration  " + LiveAction.fmt(LiveActions.CHECK_DURATION_S) + " s");
-        return new SimLiveSession(ScenarioParser.parse("live", null, text));
+        return ScenarioParser.parse("live", null, text);
     }
 
     public SimulationSession simulation() {
@@ -149,15 +155,24 @@ public final class SimLiveSession implements LiveSession {
         s.plantInvalid = p.invalid();
         s.mode = f.modeLabel;
         s.auto = f.get(Channel.AUTO) >= 0.5;
+        fillInterlocks(interlocks, s, f.tS);
+    }
+
+    /** Annunciator state of every interlock into the snapshot (no allocation). */
+    static void fillInterlocks(InterlockSet interlocks, LiveSnapshot s, double tS) {
         for (int i = 0; i < s.active.length; i++) {
             s.active[i] = interlocks.active(i);
             s.latched[i] = interlocks.latched(i);
             s.acknowledged[i] = interlocks.acknowledged(i);
             s.bypassed[i] = interlocks.bypassed(i);
             s.trip[i] = interlocks.isTrip(i);
-            s.bypassLeftS[i] = interlocks.bypassed(i) ? Math.max(0, interlocks.bypassEndS(i) - f.tS) : Double.NaN;
+            s.bypassLeftS[i] = interlocks.bypassed(i) ? Math.max(0, interlocks.bypassEndS(i) - tS) : Double.NaN;
         }
         s.firstOut = interlocks.firstOut();
+    }
+
+    static List<LiveInfo.Transmitter> transmitters() {
+        return TRANSMITTERS;
     }
 
     @Override
@@ -168,6 +183,12 @@ public final class SimLiveSession implements LiveSession {
         pending.clear();
     }
 
+    /** Plant and tuning as a saved scenario names them. */
+    static String[] references(Scenario sc, ScenarioRunner.Setup setup) {
+        return new String[] {reference(sc.plant(), ".plant", setup.plantPath()),
+            reference(sc.tuning(), ".tuning", setup.tuningPath())};
+    }
+
     /** A shipped name stays a name; a file path becomes absolute so the saved file works anywhere. */
     private static String reference(String asWritten, String ext, java.nio.file.Path resolved) {
         boolean pathLike = asWritten.contains("/") || asWritten.contains("\\") || asWritten.endsWith(ext);
@@ -176,18 +197,30 @@ public final class SimLiveSession implements LiveSession {
 
     @Override
     public List<String> scenarioLines() {
-        double dur = Math.max(1.0, Math.ceil(sim.timeS() - sim.scanPeriodS() + 1e-9));
+        List<String> l = new ArrayList<>(head(scenario, refs, sim.timeS(), sim.scanPeriodS(), null));
+        l.addAll(actions.applied());
+        return l;
+    }
+
+    /**
+     * Header of a saved session: plant, tuning, seed and load as the session started, and a
+     * duration that covers every scan run so far ({@code timeS} is the time of the next scan).
+     */
+    static List<String> head(Scenario scenario, String[] refs, double timeS, double dtS, String note) {
+        double dur = Math.max(1.0, Math.ceil(timeS - dtS + 1e-9));
         List<String> l = new ArrayList<>();
-        l.add("# Saved from the drumloop live page at t = " + LiveAction.fmt(sim.timeS()) + " s.");
+        l.add("# Saved from the drumloop live page at t = " + LiveAction.fmt(timeS) + " s.");
         l.add("# Replays the session: drumloop run FILE. Expectations of a scenario the session started");
         l.add("# from are not copied; add your own 'expect' lines.");
+        if (note != null) {
+            l.add("# Session " + note + ".");
+        }
         l.add("title     " + ("Live session".equals(scenario.title()) ? "Live session" : "Live session from " + scenario.title()));
-        l.add("plant     " + reference(scenario.plant(), ".plant", setup.plantPath()));
-        l.add("tuning    " + reference(scenario.tuning(), ".tuning", setup.tuningPath()));
+        l.add("plant     " + refs[0]);
+        l.add("tuning    " + refs[1]);
         l.add("seed      " + scenario.seed());
         l.add("load      " + LiveAction.fmt(scenario.initialLoadFrac() * 100) + " %");
         l.add("duration  " + LiveAction.fmt(dur) + " s");
-        l.addAll(actions.applied());
         return l;
     }
 }
