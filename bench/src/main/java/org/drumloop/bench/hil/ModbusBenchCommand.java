@@ -109,9 +109,11 @@ public final class ModbusBenchCommand implements Callable<Integer> {
         long n = 0;
         long intervalNs = rate > 0 ? (long) (1e9 / rate) : 0;
         long due = System.nanoTime();
+        // stop a second before the run ends, so that the server closing is not counted as a link error
+        long endNs = due + (long) ((durationS - 1.0) * 1e9);
         try {
             link.connect();
-            while (!stop.get()) {
+            while (!stop.get() && System.nanoTime() - endNs < 0) {
                 if (intervalNs > 0) {
                     // paced load: keep to the schedule, catching up in bursts after a late wake-up
                     due += intervalNs;
@@ -150,7 +152,7 @@ public final class ModbusBenchCommand implements Callable<Integer> {
             load.ioError();
         } finally {
             counted[0] = n;
-            counted[1] = startNs == 0 ? 1 : System.nanoTime() - startNs;
+            counted[1] = startNs == 0 ? 1 : Math.min(System.nanoTime(), endNs) - startNs;
             link.disconnect();
         }
     }

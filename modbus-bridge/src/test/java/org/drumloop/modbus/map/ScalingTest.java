@@ -134,6 +134,38 @@ class ScalingTest {
         }
     }
 
+    /** Every numeric type in every word order: raw range ends and mid-scale map to eng ends and mid-scale. */
+    static java.util.stream.Stream<org.junit.jupiter.params.provider.Arguments> typesAndOrders() {
+        java.util.List<org.junit.jupiter.params.provider.Arguments> out = new java.util.ArrayList<>();
+        for (DataType t : DataType.values()) {
+            if (t == DataType.BOOL) {
+                continue;
+            }
+            for (WordOrder o : t.is32() ? WordOrder.values() : new WordOrder[] {WordOrder.ABCD}) {
+                out.add(org.junit.jupiter.params.provider.Arguments.of(t, o));
+            }
+        }
+        return out.stream();
+    }
+
+    @org.junit.jupiter.params.ParameterizedTest
+    @org.junit.jupiter.params.provider.MethodSource("typesAndOrders")
+    void rangeEndsAndMidScaleForEveryTypeAndWordOrder(DataType type, WordOrder order) {
+        // raw ranges chosen per type so that ends and middle are whole counts: linear scaling (closed form)
+        double rawLo = type == DataType.INT16 || type == DataType.INT32 ? -20000 : (type == DataType.FLOAT32 ? -300.0 : 4000);
+        double rawHi = type == DataType.INT16 || type == DataType.INT32 ? 20000 : (type == DataType.FLOAT32 ? 300.0 : 20000);
+        double engLo = -300.0;
+        double engHi = 300.0;
+        int[] regs = new int[2];
+        double[][] cases = {{rawLo, engLo}, {(rawLo + rawHi) / 2, 0.0}, {rawHi, engHi}};
+        for (double[] c : cases) {
+            Scaling.writeRaw(type, order, Scaling.toRaw(c[1], rawLo, rawHi, engLo, engHi), regs, 0);
+            double raw = Scaling.readRaw(type, order, regs, 0);
+            assertEquals(c[0], raw, 0.0, "whole counts and these floats are exact");
+            assertEquals(c[1], Scaling.toEng(raw, rawLo, rawHi, engLo, engHi), EXACT_TOL);
+        }
+    }
+
     @Test
     void clampLimitsToTheRangeAndKeepsNaN() {
         assertEquals(0.0, Scaling.clamp(-3, 0, 100), 0.0);
