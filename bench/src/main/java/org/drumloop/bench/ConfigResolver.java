@@ -69,6 +69,22 @@ public final class ConfigResolver {
         return null;
     }
 
+    /**
+     * How to show a resolved file to the user: files from the shipped copy read
+     * {@code config/KIND/NAME} (not the temporary folder they were extracted to); others as given.
+     */
+    public static String displayName(Path p) {
+        Path root = bundledRoot();
+        if (root != null) {
+            Path abs = p.toAbsolutePath().normalize();
+            Path r = root.toAbsolutePath().normalize();
+            if (abs.startsWith(r)) {
+                return BUNDLED + "/" + r.relativize(abs).toString().replace('\\', '/');
+            }
+        }
+        return p.toString();
+    }
+
     /** Names available for a kind (working directory's config first, then the shipped copy). */
     public static List<String> names(String kind, String ext) {
         Path dir = Paths.get(BUNDLED, kind);

@@ -25,7 +25,7 @@ final class Runs {
             throw new ConfigException(ref, 0, "", "no such scenario file (nor a scenario of that name in"
                     + " config/scenarios or shipped: " + ConfigResolver.names("scenarios", ".scenario") + ")");
         }
-        return ScenarioParser.load(p);
+        return ScenarioParser.load(p, ConfigResolver.displayName(p));
     }
 
     /** A progress writer when stdout is a terminal, else null (no progress when piped). */

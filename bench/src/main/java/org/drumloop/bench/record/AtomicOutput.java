@@ -8,6 +8,7 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.PosixFilePermissions;
 
 /**
  * A text output written to a temporary file beside its target and moved into place only when
@@ -40,6 +41,12 @@ public final class AtomicOutput implements AutoCloseable {
             Files.move(temp, target, StandardCopyOption.REPLACE_EXISTING);
         }
         done = true;
+        try {
+            // temporary files are private (rw-------); a record is an ordinary readable file
+            Files.setPosixFilePermissions(target, PosixFilePermissions.fromString("rw-r--r--"));
+        } catch (UnsupportedOperationException | IOException e) {
+            // not a POSIX file system: keep what the platform gave
+        }
     }
 
     /** Discard unless committed. */

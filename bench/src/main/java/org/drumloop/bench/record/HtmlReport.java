@@ -153,6 +153,19 @@ public final class HtmlReport {
         return sb.toString();
     }
 
+    /**
+     * A page with only the title, verdict and the plots of a run (for a picture of the trends, e.g.
+     * in the README); same look as the report.
+     */
+    public static String renderPlots(RunSummary r) {
+        String full = render(r);
+        int h = full.indexOf("<header>");
+        int he = full.indexOf("</header>") + "</header>".length();
+        int p = full.indexOf("<h2>Trends</h2>");
+        int pe = full.indexOf("<h2>Events</h2>");
+        return full.substring(0, h) + full.substring(h, he) + full.substring(p, pe) + "</body></html>\n";
+    }
+
     private static void row(StringBuilder sb, String k, String v) {
         sb.append("<tr><th>").append(k).append("</th><td>").append(v).append("</td></tr>\n");
     }

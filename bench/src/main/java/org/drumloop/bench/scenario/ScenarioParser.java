@@ -43,8 +43,13 @@ public final class ScenarioParser {
     }
 
     public static Scenario load(Path p) throws ConfigException, IOException {
+        return load(p, p.toString());
+    }
+
+    /** Load with the name to show in messages and records (e.g. {@code config/scenarios/demo.scenario}). */
+    public static Scenario load(Path p, String shownAs) throws ConfigException, IOException {
         List<String> lines = Files.readAllLines(p, StandardCharsets.UTF_8);
-        return parse(p.toString(), p, lines);
+        return parse(shownAs, p, lines);
     }
 
     public static Scenario parse(String file, Path path, List<String> lines) throws ConfigException {
