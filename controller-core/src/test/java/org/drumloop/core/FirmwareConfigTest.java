@@ -66,8 +66,8 @@ class FirmwareConfigTest {
         assertEquals(10_000.0 / 3600.0, d.ratedSteamFlowKgS(), EXACT);
         assertTrue(d.interlocks().size() > 0, "default.interlocks is read");
         assertEquals(Mode.THREE_ELEMENT, d.startMode());
-        // 0.3 (t/h)/mm = 0.3 * (1000/3600) / 1e-3 (kg/s)/m by definition of the units
-        assertEquals(0.3 * 1000.0 / 3600.0 / 1e-3, d.levelMaster().kc(), 1e-9);
+        // 0.03 (t/h)/mm = 0.03 * (1000/3600) / 1e-3 (kg/s)/m by definition of the units
+        assertEquals(0.03 * 1000.0 / 3600.0 / 1e-3, d.levelMaster().kc(), 1e-9);
         // 2.5 %/(t/h) = 0.025 / (1000/3600) per kg/s
         assertEquals(0.025 * 3.6, d.feedSlave().kc(), 1e-12);
         FirmwareConfig ab = FirmwareConfig.load(AB160_TUNING);

@@ -107,7 +107,8 @@ class FirmwareTest {
         assertTrue(fw.status().forcedSingleElement);
         // Bumpless: the single-element controller tracked the valve; with the level at setpoint the
         // first single-element output differs only by one scan of integral action (closed form
-        // Kc*h/Ti*e with e below 2 mm: 12*0.1/240*0.002 = 1e-5).
+        // Kc*h/Ti*e with Kc = 0.2 %/mm = 2 /m, Ti = 600 s, e below 2 mm: 2*0.1/600*0.002 = 7e-7),
+        // bounded here by 1e-4
         assertEquals(before, out.value(Signal.FEED_VALVE_DEMAND), 1e-4);
         assertTrue(logged("steam_flow_dp FAULT signal bad"), events.toString());
         assertTrue(logged("three-element blocked"), events.toString());
@@ -133,10 +134,11 @@ class FirmwareTest {
         run(DT_S);
         assertEquals(Mode.SINGLE_ELEMENT, fw.status().mode);
         // The first automatic output starts from the manual value; it moves only by one scan of
-        // P and I on a level that drifted in manual: bound it by Kc*|e| + Kc*h/Ti*|e| with |e| < 5 mm.
+        // P and I on a level that drifted in manual: bound it by Kc*|e|*(1 + h/Ti) with |e| < 5 mm
         double e = Math.abs(fw.status().levelM);
         assertTrue(e < 0.005, "level drift in 10 s of manual " + e);
-        assertEquals(0.55, out.value(Signal.FEED_VALVE_DEMAND), 12.0 * e * (1 + 0.1 / 240) + 1e-12);
+        double kc = cfg.singleElement().kc();
+        assertEquals(0.55, out.value(Signal.FEED_VALVE_DEMAND), kc * e * (1 + 0.1 / cfg.singleElement().tiS()) + 1e-12);
         fw.operator().requestMode(Mode.THREE_ELEMENT);
         double u0 = out.value(Signal.FEED_VALVE_DEMAND);
         run(DT_S);
