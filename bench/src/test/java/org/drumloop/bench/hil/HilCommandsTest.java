@@ -119,4 +119,47 @@ class HilCommandsTest {
         assertEquals(ExitCode.OK, plant.get(30, TimeUnit.SECONDS).intValue(), served.err.toString());
         assertTrue(Files.exists(dir.resolve("plant").resolve("link-stats.csv")));
     }
+
+    @Test
+    void driveRigControlsAServedPlantOverRtuOnASerialLinePair() throws Exception {
+        String socat = findOnPath("socat");
+        Path a = dir.resolve("ttyPlant");
+        Path b = dir.resolve("ttyRig");
+        Process pair = new ProcessBuilder(socat, "-d", "-d", "pty,raw,echo=0,link=" + a, "pty,raw,echo=0,link=" + b)
+                .redirectErrorStream(true).redirectOutput(dir.resolve("socat.log").toFile()).start();
+        try {
+            long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(15);
+            while (!(Files.exists(a) && Files.exists(b)) && System.nanoTime() < end) {
+                java.util.concurrent.locks.LockSupport.parkNanos(10_000_000L);
+            }
+            assertTrue(Files.exists(a) && Files.exists(b), "socat did not create the pty pair");
+            Run served = new Run();
+            CompletableFuture<Integer> plant = CompletableFuture.supplyAsync(() -> served.exec("serve-plant",
+                    "--map", MAP.toString(), "--plant", PLANT.toString(), "--rtu", a.toString(), "--baud", "38400",
+                    "--parity", "none", "--stop", "2", "--duration", "6", "--out", dir.resolve("plant").toString()));
+            Run rig = new Run();
+            int code = rig.exec("drive-rig", "--map", MAP.toString(), "--tuning", TUNING.toString(), "--rtu", b.toString(),
+                    "--baud", "38400", "--parity", "none", "--stop", "2", "--poll", "100", "--duration", "4",
+                    "--out", dir.resolve("rig").toString());
+            assertEquals(ExitCode.OK, code, rig.err.toString());
+            assertEquals(ExitCode.OK, plant.get(30, TimeUnit.SECONDS).intValue(), served.err.toString());
+            String[] row = Files.readAllLines(dir.resolve("plant").resolve("link-stats.csv")).get(1).split(",");
+            // the plant side answered requests over the serial pair (columns: link,requests,ok,...)
+            assertTrue(Long.parseLong(row[2]) > 10, String.join(",", row));
+        } finally {
+            pair.destroy();
+            pair.waitFor();
+        }
+    }
+
+    /** A tool on PATH, or a failure naming the Debian package that provides it. */
+    private static String findOnPath(String command) {
+        for (String d : System.getenv().getOrDefault("PATH", "").split(java.io.File.pathSeparator)) {
+            java.io.File f = new java.io.File(d, command);
+            if (f.isFile() && f.canExecute()) {
+                return f.getAbsolutePath();
+            }
+        }
+        return org.junit.jupiter.api.Assertions.fail(command + " is not installed: install the Debian package '" + command + "'");
+    }
 }
