@@ -258,4 +258,40 @@ class FirmwareTest {
         assertFalse(fw.operator().setManualOutput(1.5), "out of 0..1 refused at once");
         assertEquals(EventKind.OPERATOR, EventKind.valueOf("OPERATOR"));
     }
+
+    @Test
+    void aFailureCurrentOnOneLevelTransmitterLeavesControlOnTheOtherTwo() {
+        run(10);
+        // NE 43: 3.5 mA is a failure signal; the rig's other inputs stay engineering values
+        FirmwareConfig c = cfg;
+        int n = (int) Math.round(5.0 / DT_S);
+        for (int i = 0; i < n; i++) {
+            rig.write(in, tS);
+            in.setCurrentMa(Signal.LEVEL_DP_B, 3.5, Quality.GOOD, tS);
+            fw.scan(in, out, tS, DT_S);
+            fw.events().drainTo((t, scan, tag, kind, msg) -> events.add(tag + " " + kind + " " + msg));
+            rig.step(out, DT_S);
+            tS += DT_S;
+        }
+        assertEquals(Quality.BAD, fw.status().levelTxQuality[1]);
+        assertEquals(Quality.UNCERTAIN, fw.status().levelQuality, "two of three left: mean, uncertain");
+        assertEquals(Mode.THREE_ELEMENT, fw.status().mode);
+        assertEquals(rig.levelM, fw.status().levelM, 2e-3, "still measures the drum (2 mm: table interpolation and lag)");
+        assertTrue(logged("level_dp_b FAULT signal bad"), events.toString());
+        assertTrue(c.levelCal().lowSi() > c.levelCal().highSi(), "reverse calibration: 4 mA at the low level (largest dp)");
+    }
+
+    @Test
+    void aBadDrumPressureIsReplacedByTheDesignPressure() {
+        run(10);
+        double level = fw.status().levelM;
+        rig.quality[Signal.DRUM_PRESSURE.ordinal()] = Quality.BAD;
+        run(1);
+        assertEquals(Quality.BAD, fw.status().drumPressureQuality);
+        // design pressure 9 bara equals the rig's 9 bar: the compensated level does not move
+        assertEquals(9e5, fw.status().drumPressurePa, 1e-6);
+        assertEquals(level, fw.status().levelM, 1e-3);
+        assertEquals(Quality.UNCERTAIN, fw.status().levelQuality, "compensated with a substituted pressure");
+        assertTrue(logged("drum_pressure FAULT signal bad"));
+    }
 }
