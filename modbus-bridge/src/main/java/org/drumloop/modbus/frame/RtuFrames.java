@@ -1,7 +1,7 @@
 package org.drumloop.modbus.frame;
 
 /**
- * Modbus RTU framing helpers: whole-frame encoding, frame length rules and the t1.5/t3.5 timers
+ * Modbus RTU framing: whole-frame encoding, frame length rules and the t1.5/t3.5 timers
  * of MODBUS over Serial Line V1.02 §2.5.1.1 (11-bit characters; fixed 0.750 ms / 1.750 ms above
  * 19200 baud).
  */
