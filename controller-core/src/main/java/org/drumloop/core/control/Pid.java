@@ -5,8 +5,8 @@ package org.drumloop.core.control;
  * direct/reverse action, anti-windup by back-calculation, a tracking input for bumpless transfer and
  * bumpless parameter changes. See {@link PidParams} for the control law.
  *
- * <p>Discretisation for scan period h (Astrom and Hagglund, Advanced PID Control, ISA 2006, ch. 13,
- * "computer implementation"):
+ * <p>Discretisation for scan period h (Astrom and Hagglund, Advanced PID Control, ISA 2006, on the computer
+ * implementation of PID controllers; chapter not given, from memory):
  * <pre>
  *   P(k)   = s Kc (b r(k) - y(k))
  *   D(k)   = Td/(Td + N h) D(k-1) + s Kc Td N/(Td + N h) ((c r(k) - y(k)) - (c r(k-1) - y(k-1)))

@@ -8,7 +8,8 @@ package org.drumloop.core.control;
  * with s = +1 for reverse action (output rises when the measurement falls below the setpoint, e.g.
  * level to feed valve) and s = -1 for direct action. The derivative is filtered,
  * Td s / (1 + Td s / N). Anti-windup by back-calculation with tracking time constant Tt
- * (Astrom and Hagglund, Advanced PID Control, ISA 2006, ch. 3).
+ * (Astrom and Hagglund, Advanced PID Control, ISA 2006; Astrom and Hagglund, PID Controllers:
+ * Theory, Design, and Tuning, 2nd ed., 1995, section 3.5 for back-calculation and Tt).
  *
  * @param kc          controller gain Kc, output unit per measurement unit (SI), non-negative
  * @param tiS         integral time Ti [s]; {@code Double.POSITIVE_INFINITY} for no integral action

@@ -10,7 +10,8 @@ package org.drumloop.core.control;
  *   valve  = slave(feedSp, q_feed)
  * </pre>
  * so that at steady state feed flow equals steam flow plus blowdown and the master only trims
- * (ANSI/ISA-77.42.01-1999, drum-type feedwater control; cascade with feedforward). Single-element: a
+ * (cascade with feedforward as described for drum-type feedwater control in ANSI/ISA-77.42.01-1999;
+ * that the standard says so is from memory, not checked against its text). Single-element: a
  * level PI positions the valve directly. Manual: the operator's valve position.
  *
  * <p>Bumpless changes: the blocks that are not in the loop track every scan. In single-element and

@@ -4,7 +4,7 @@ import org.drumloop.core.io.Quality;
 
 /**
  * Selection of one control value from three redundant transmitters (median select, common practice
- * for drum level; ANSI/ISA-77.42.01 recommends redundant level transmitters with median selection).
+ * for drum level; that ANSI/ISA-77.42.01 recommends it is from memory, unverified).
  *
  * <p>Usable inputs are GOOD or UNCERTAIN. Three usable: the median, quality GOOD unless the median input
  * itself is UNCERTAIN. Two usable: their mean, quality UNCERTAIN (the vote has lost its tie-breaker).

@@ -6,7 +6,7 @@ import org.junit.jupiter.api.Test;
 
 /**
  * Step responses of the PID block in closed loop against the closed-form responses of continuous
- * loops (Laplace transforms, Astrom and Hagglund, Advanced PID Control, ISA 2006, ch. 4). The block is
+ * loops (Laplace transforms, closed-loop transfer functions as in Astrom and Hagglund, Advanced PID Control, ISA 2006). The block is
  * sampled, so it lags the continuous controller by up to one scan; with a 1 ms scan against closed-loop
  * time constants of 3 s or more the difference is a few 1e-4 of the step, hence the 1e-3 tolerances.
  */

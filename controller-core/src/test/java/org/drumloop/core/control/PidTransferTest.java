@@ -7,7 +7,7 @@ import org.junit.jupiter.api.Test;
 
 /**
  * Anti-windup, bumpless transfer, bumpless retuning and the derivative kick (Astrom and Hagglund,
- * Advanced PID Control, ISA 2006, ch. 3: setpoint weighting, anti-windup by back-calculation,
+ * Advanced PID Control, ISA 2006: setpoint weighting, anti-windup by back-calculation,
  * bumpless transfer). Expected values are closed forms of the discrete law in {@link Pid}'s
  * Javadoc; a few operations in double precision, hence 1e-12.
  */
@@ -173,7 +173,7 @@ class PidTransferTest {
 
     /**
      * A long saturation winds up a PI controller without anti-windup: large overshoot and a long
-     * recovery. Back-calculation removes most of it (Astrom and Hagglund 2006, ch. 3, windup
+     * recovery. Back-calculation removes most of it (Astrom and Hagglund 2006, windup
      * example: same qualitative result). Process 1/(10 s + 1), Kc = 5, Ti = 5 s, output limit 1.5
      * (the setpoint needs 1.0).
      */

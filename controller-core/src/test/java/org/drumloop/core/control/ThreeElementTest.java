@@ -5,9 +5,9 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import org.junit.jupiter.api.Test;
 
 /**
- * Three-element cascade (ANSI/ISA-77.42.01-1999: level master trims a feed-flow demand that carries
+ * Three-element cascade (ANSI/ISA-77.42.01-1999, content from memory: level master trims a feed-flow demand that carries
  * the steam flow as feedforward; feed-flow slave positions the valve) and bumpless changes between
- * manual, single-element and three-element (Astrom and Hagglund 2006, ch. 3: inactive blocks track).
+ * manual, single-element and three-element (Astrom and Hagglund 2006: inactive blocks track).
  * Zero bump means equal to the last output to rounding (1e-12) when the inputs do not change.
  */
 class ThreeElementTest {

@@ -5,7 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import org.drumloop.core.io.Quality;
 import org.junit.jupiter.api.Test;
 
-/** Median-of-three selection (common practice for drum level; ANSI/ISA-77.42.01 names median selection). */
+/** Median-of-three selection (common practice for drum level; that ANSI/ISA-77.42.01 names median selection is from memory). */
 class MedianSelectTest {
     static final Quality G = Quality.GOOD;
     static final Quality U = Quality.UNCERTAIN;
