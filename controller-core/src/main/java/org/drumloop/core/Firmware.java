@@ -3,6 +3,7 @@ package org.drumloop.core;
 import org.drumloop.core.control.FeedPumpControl;
 import org.drumloop.core.control.LoadProgram;
 import org.drumloop.core.control.Pid;
+import org.drumloop.core.control.PidParams;
 import org.drumloop.core.control.SwellCompensator;
 import org.drumloop.core.control.ThreeElement;
 import org.drumloop.core.exec.ScanBody;
@@ -111,6 +112,7 @@ public final class Firmware implements ScanBody {
     private final Mode[] opMode = new Mode[OperatorCommands.CAPACITY];
     private final String[] opTag = new String[OperatorCommands.CAPACITY];
     private final String[] opReason = new String[OperatorCommands.CAPACITY];
+    private final PidParams[] opParams = new PidParams[OperatorCommands.CAPACITY];
 
     /** Firmware with a sequence-of-events log of 4096 entries. */
     public Firmware(FirmwareConfig cfg) {
@@ -305,7 +307,7 @@ public final class Firmware implements ScanBody {
     }
 
     private void applyOperator(double tS, long k) {
-        int n = operator.drain(opKind, opNum, opMode, opTag, opReason);
+        int n = operator.drain(opKind, opNum, opMode, opTag, opReason, opParams);
         for (int i = 0; i < n; i++) {
             switch (opKind[i]) {
                 case OperatorCommands.MODE:
@@ -351,9 +353,21 @@ public final class Firmware implements ScanBody {
                         log.record(tS, k, opTag[i], EventKind.OPERATOR, "bypass refused: " + interlocks.lastRefusal());
                     }
                     break;
+                case OperatorCommands.RETUNE: {
+                    Pid pid = OperatorCommands.SINGLE_ELEMENT.equals(opTag[i]) ? control.single()
+                            : OperatorCommands.LEVEL_MASTER.equals(opTag[i]) ? control.master() : control.slave();
+                    if (opParams[i].reverse() == pid.params().reverse()) {
+                        pid.setParams(opParams[i]);
+                        log.record(tS, k, opTag[i], EventKind.OPERATOR, "tuning changed");
+                    } else {
+                        log.record(tS, k, opTag[i], EventKind.OPERATOR, "tuning refused: action cannot change in operation");
+                    }
+                    break;
+                }
                 default:
                     break;
             }
+            opParams[i] = null;
             opMode[i] = null;
             opTag[i] = null;
             opReason[i] = null;

@@ -15,6 +15,12 @@ public final class OperatorCommands {
     static final int RESET = 5;
     static final int ACK = 6;
     static final int BYPASS = 7;
+    static final int RETUNE = 8;
+
+    /** Controller names for {@link #retune}. */
+    public static final String SINGLE_ELEMENT = "single_element";
+    public static final String LEVEL_MASTER = "level_master";
+    public static final String FEED_SLAVE = "feed_slave";
 
     /** Queue capacity; more requests between two scans than this are refused. */
     public static final int CAPACITY = 32;
@@ -24,6 +30,7 @@ public final class OperatorCommands {
     private final Mode[] mode = new Mode[CAPACITY];
     private final String[] tag = new String[CAPACITY];
     private final String[] reason = new String[CAPACITY];
+    private final org.drumloop.core.control.PidParams[] params = new org.drumloop.core.control.PidParams[CAPACITY];
     private int count;
 
     /** Ask for a mode: MANUAL switches to manual; SINGLE_ELEMENT or THREE_ELEMENT selects that strategy in auto. */
@@ -76,10 +83,29 @@ public final class OperatorCommands {
         return put(BYPASS, durationS, null, interlockTag.strip(), why);
     }
 
+    /**
+     * Retune one controller ({@link #SINGLE_ELEMENT}, {@link #LEVEL_MASTER} or {@link #FEED_SLAVE})
+     * without a bump: the new settings take effect at the start of the next scan and the integral
+     * absorbs the change of the proportional term. Action (reverse/direct) cannot be changed here.
+     */
+    public boolean retune(String controller, org.drumloop.core.control.PidParams p) {
+        if (p == null || !(SINGLE_ELEMENT.equals(controller) || LEVEL_MASTER.equals(controller) || FEED_SLAVE.equals(controller))) {
+            return false;
+        }
+        synchronized (this) {
+            if (!put(RETUNE, 0.0, null, controller, null)) {
+                return false;
+            }
+            params[count - 1] = p;
+            return true;
+        }
+    }
+
     private synchronized boolean put(int k, double x, Mode m, String t, String r) {
         if (count >= CAPACITY) {
             return false;
         }
+        params[count] = null;
         kind[count] = k;
         number[count] = x;
         mode[count] = m;
@@ -90,8 +116,9 @@ public final class OperatorCommands {
     }
 
     /** Move the queued requests into the firmware's arrays (same capacity); returns the count. Allocation-free. */
-    synchronized int drain(int[] k, double[] x, Mode[] m, String[] t, String[] r) {
+    synchronized int drain(int[] k, double[] x, Mode[] m, String[] t, String[] r, org.drumloop.core.control.PidParams[] pp) {
         int n = count;
+        System.arraycopy(params, 0, pp, 0, n);
         System.arraycopy(kind, 0, k, 0, n);
         System.arraycopy(number, 0, x, 0, n);
         System.arraycopy(mode, 0, m, 0, n);
@@ -101,6 +128,7 @@ public final class OperatorCommands {
             mode[i] = null;
             tag[i] = null;
             reason[i] = null;
+            params[i] = null;
         }
         count = 0;
         return n;

@@ -294,4 +294,24 @@ class FirmwareTest {
         assertEquals(Quality.UNCERTAIN, fw.status().levelQuality, "compensated with a substituted pressure");
         assertTrue(logged("drum_pressure FAULT signal bad"));
     }
+
+    @Test
+    void retuningTheLevelMasterInOperationIsBumplessAndLogged() {
+        run(30);
+        fw.operator().setLevelSetpoint(0.02); // give the master a standing error
+        run(5);
+        double before = fw.control().masterOut();
+        double e = fw.status().levelSetpointM - fw.status().levelForControlM;
+        org.drumloop.core.control.PidParams p = cfg.levelMaster();
+        fw.operator().retune(OperatorCommands.LEVEL_MASTER, p.withKc(3 * p.kc()));
+        run(DT_S);
+        double after = fw.control().masterOut();
+        // Without bumpless retuning the output would jump by (3 - 1) Kc e; with it, only one scan of
+        // integral action and of the level's movement separates the two (bounded by Kc |e| / 4 here,
+        // far below the 2 Kc |e| jump)
+        assertTrue(Math.abs(after - before) < 0.25 * p.kc() * Math.abs(e) + 1e-9,
+                "master moved " + (after - before) + " kg/s; a bump would be " + 2 * p.kc() * e);
+        assertEquals(3 * p.kc(), fw.control().master().params().kc(), 1e-12);
+        assertTrue(logged("level_master OPERATOR tuning changed"));
+    }
 }
