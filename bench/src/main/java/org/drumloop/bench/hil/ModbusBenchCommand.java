@@ -115,10 +115,11 @@ public final class ModbusBenchCommand implements Callable<Integer> {
             link.connect();
             while (!stop.get() && System.nanoTime() - endNs < 0) {
                 if (intervalNs > 0) {
-                    // paced load: keep to the schedule, catching up in bursts after a late wake-up
+                    // paced load: keep to the schedule in bursts of about a millisecond, so the load
+                    // generator wakes up a thousand times a second rather than once per request
                     due += intervalNs;
                     long ahead = due - System.nanoTime();
-                    if (ahead > 50_000) {
+                    if (ahead > 1_000_000) {
                         java.util.concurrent.locks.LockSupport.parkNanos(ahead);
                     } else if (ahead < -100_000_000L) {
                         due = System.nanoTime();
