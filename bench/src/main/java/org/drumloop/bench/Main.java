@@ -43,13 +43,19 @@ public final class Main implements Runnable {
         "org.drumloop.bench.live.LiveCommand",
     };
 
+    private static volatile boolean verbose;
+
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
+
+    /** True when --verbose was given: debug detail and timing lines go to the log. */
+    public static boolean verbose() { return verbose; }
 
     @Option(names = "--verbose", description = "log debug detail and timing lines to stderr",
             scope = CommandLine.ScopeType.INHERIT)
     void setVerbose(boolean on) {
         if (on) {
+            verbose = true;
             ((Logger) LoggerFactory.getLogger(org.slf4j.Logger.ROOT_LOGGER_NAME)).setLevel(Level.DEBUG);
         }
     }

@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.List;
 
 import org.drumloop.bench.ConfigResolver;
+import org.drumloop.bench.Main;
 import org.drumloop.bench.expect.Binder;
 import org.drumloop.bench.expect.Expectation;
 import org.drumloop.bench.expect.Frame;
@@ -45,7 +46,6 @@ import org.slf4j.LoggerFactory;
  * file and moved into place only when complete).
  */
 public final class ScenarioRunner {
-    private static final Logger LOG = LoggerFactory.getLogger(ScenarioRunner.class);
     /** Time buckets of the plots. */
     static final int PLOT_BUCKETS = 1200;
     /** Tolerance when comparing an action's time with the scan time (well under any scan period). */
@@ -70,6 +70,11 @@ public final class ScenarioRunner {
     }
 
     private ScenarioRunner() {
+    }
+
+    /** The logger, created only when something is logged: a quiet run never starts the logging system. */
+    private static Logger log() {
+        return LoggerFactory.getLogger(ScenarioRunner.class);
     }
 
     /** Resolve and load the plant and tuning a scenario names; errors point at the scenario line. */
@@ -194,10 +199,16 @@ public final class ScenarioRunner {
      * @throws IOException     records could not be written
      */
     public static RunSummary run(Scenario sc, Options o) throws ConfigException, IOException {
+        long t0 = System.nanoTime();
         Setup setup = setup(sc);
         SimulationSession s = new SimulationSession(setup.plant(), setup.tuning(), sc.seed(), sc.initialLoadFrac());
         InterlockSet il = s.firmware().interlocks();
         bind(sc, il);
+        if (Main.verbose()) {
+            log().debug(String.format(java.util.Locale.ROOT, "%s: plant %s, tuning %s loaded and session built in %.1f ms;"
+                    + " JVM up %d ms", sc.name(), setup.plantPath(), setup.tuningPath(), (System.nanoTime() - t0) * 1e-6,
+                    java.lang.management.ManagementFactory.getRuntimeMXBean().getUptime()));
+        }
         AtomicOutput trendOut = null;
         AtomicOutput eventsOut = null;
         try {
@@ -330,8 +341,11 @@ public final class ScenarioRunner {
         for (Expectation e : ex) {
             outcomes.add(e.finish(endS));
         }
-        LOG.debug("{}: {} scans, {} s plant time in {} s wall ({}x real time)", sc.name(), s.scans(), endS, wallS,
-                wallS > 0 ? endS / wallS : Double.POSITIVE_INFINITY);
+        if (Main.verbose()) {
+            log().debug(String.format(java.util.Locale.ROOT, "%s: %d scans, %.1f s of plant time in %.3f s wall"
+                    + " (%.0f x real time, %.2f us per scan)", sc.name(), s.scans(), endS, wallS,
+                    wallS > 0 ? endS / wallS : Double.POSITIVE_INFINITY, wallS / Math.max(1, s.scans()) * 1e6));
+        }
         Plant p = s.plant();
         return new RunSummary(sc, setup.plantPath().getFileName().toString(),
                 setup.tuningPath().getFileName().toString(), endS, wallS, s.scans(), outcomes, fig, plot,
