@@ -27,6 +27,8 @@ final class Broadcaster implements Runnable {
     private final ArrayDeque<LiveEvent> recent = new ArrayDeque<>();
     private final List<LiveEvent> fresh = new ArrayList<>();
     private String message = null;
+    /** The newest message as one ready-to-send SSE frame, encoded once for every client. */
+    private byte[] frame = new byte[0];
     private long seq;
     private volatile boolean running = true;
 
@@ -51,34 +53,37 @@ final class Broadcaster implements Runnable {
         }
     }
 
+    /** A message ready to send: its number and its SSE frame ({@code id:} and {@code data:} lines). */
+    record Frame(long seq, byte[] bytes) {
+    }
+
     /**
-     * Wait until a message newer than {@code after} exists and return it with its number, or null
-     * when stopped. Called by the SSE writer threads.
+     * Wait until a message newer than {@code after} exists and return it, or null when stopped.
+     * Called by the SSE writer threads; every client gets the same encoded bytes.
      */
-    Object[] await(long after) throws InterruptedException {
+    Frame await(long after) throws InterruptedException {
         synchronized (lock) {
             while (running && seq <= after) {
                 lock.wait(1_000);
             }
-            return running ? new Object[] {seq, message} : null;
+            return running ? new Frame(seq, frame) : null;
         }
     }
 
+    /**
+     * The loop wakes this thread after a publish, once per period; when the loop is not running
+     * (or is slower than the period) a timeout of two periods keeps the messages coming.
+     */
     @Override
     public void run() {
-        long next = System.nanoTime();
-        while (running) {
-            tick();
-            next += periodMs * 1_000_000L;
-            long wait = next - System.nanoTime();
-            if (wait < 0) {
-                next = System.nanoTime();
-            } else {
-                try {
-                    Thread.sleep(wait / 1_000_000L, (int) (wait % 1_000_000L));
-                } catch (InterruptedException e) {
-                    return;
-                }
+        long periodNs = periodMs * 1_000_000L;
+        long last = System.nanoTime();
+        while (running && !Thread.currentThread().isInterrupted()) {
+            java.util.concurrent.locks.LockSupport.parkNanos(this, 2 * periodNs);
+            long now = System.nanoTime();
+            if (now - last >= periodNs / 2) { // ignore early, spurious wake-ups
+                last = now;
+                tick();
             }
         }
     }
@@ -115,6 +120,7 @@ final class Broadcaster implements Runnable {
             events(b, fresh);
             b.append('}');
             message = b.toString();
+            frame = ("id: " + seq + "\ndata: " + message + "\n\n").getBytes(java.nio.charset.StandardCharsets.UTF_8);
             lock.notifyAll();
         }
     }

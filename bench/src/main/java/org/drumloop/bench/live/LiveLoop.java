@@ -35,6 +35,9 @@ public final class LiveLoop {
     private volatile boolean scheduleChanged;
     private volatile boolean running;
     private volatile double timeS;
+    private volatile Thread listener;
+    private volatile long listenerPeriodNs;
+    private long lastSignalNs;
     private long eventSeq;
     private long scans;
 
@@ -114,6 +117,16 @@ public final class LiveLoop {
 
     public double speed() {
         return speed;
+    }
+
+    /**
+     * Wake {@code t} (with {@link LockSupport#unpark}) right after a publish, at most once per
+     * {@code periodNs}: readers then do their work just after a scan, a whole period before the
+     * next deadline, instead of at a random phase that may collide with it.
+     */
+    void setPublishListener(Thread t, long periodNs) {
+        listenerPeriodNs = periodNs;
+        listener = t;
     }
 
     /** Simulated time of the last scan [s]. */
@@ -197,6 +210,12 @@ public final class LiveLoop {
             s.scan = scans;
             s.publishedNanos = System.nanoTime();
             snapshots.publish();
+            Thread l = listener;
+            // 0.8 of the period: a scan that starts a little early must not skip a whole period
+            if (l != null && s.publishedNanos - lastSignalNs >= listenerPeriodNs - listenerPeriodNs / 5) {
+                lastSignalNs = s.publishedNanos;
+                LockSupport.unpark(l);
+            }
             for (CompletableFuture<List<String>> f = scenarioRequests.poll(); f != null; f = scenarioRequests.poll()) {
                 f.complete(session.scenarioLines());
             }

@@ -47,6 +47,7 @@ public final class LiveServer implements AutoCloseable {
     private final HttpServer http;
     private final ExecutorService executor;
     private final AtomicInteger clients = new AtomicInteger();
+    private final long broadcastPeriodMs;
 
     /**
      * Serve {@code loop} on {@code bindAddress:port} (port 0 picks a free one). The loop is not
@@ -54,6 +55,7 @@ public final class LiveServer implements AutoCloseable {
      */
     public LiveServer(LiveLoop loop, InetAddress bindAddress, int port, long broadcastMs) throws IOException {
         this.loop = loop;
+        this.broadcastPeriodMs = broadcastMs;
         this.parser = new CommandParser(loop.session().info());
         this.broadcaster = new Broadcaster(loop, broadcastMs, UUID.randomUUID().toString());
         this.http = HttpServer.create(new InetSocketAddress(bindAddress, port), 64);
@@ -79,6 +81,7 @@ public final class LiveServer implements AutoCloseable {
 
     public void start() {
         broadcaster.tick();
+        loop.setPublishListener(broadcastThread, broadcastPeriodMs * 1_000_000L);
         broadcastThread.start();
         http.start();
     }
@@ -98,6 +101,7 @@ public final class LiveServer implements AutoCloseable {
 
     @Override
     public void close() {
+        loop.setPublishListener(null, Long.MAX_VALUE);
         broadcaster.stop();
         broadcastThread.interrupt();
         http.stop(0);
@@ -165,12 +169,12 @@ public final class LiveServer implements AutoCloseable {
             out.flush();
             long after = broadcaster.seq() - 1;
             while (true) {
-                Object[] m = broadcaster.await(after);
-                if (m == null) {
+                Broadcaster.Frame f = broadcaster.await(after);
+                if (f == null) {
                     return;
                 }
-                after = (Long) m[0];
-                out.write(("id: " + after + "\ndata: " + m[1] + "\n\n").getBytes(StandardCharsets.UTF_8));
+                after = f.seq();
+                out.write(f.bytes());
                 out.flush();
             }
         } catch (InterruptedException e) {
