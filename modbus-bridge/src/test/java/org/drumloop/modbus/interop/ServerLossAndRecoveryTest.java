@@ -65,8 +65,9 @@ class ServerLossAndRecoveryTest {
             }, WAIT_S), "inputs stayed GOOD after the server died");
             double toBadS = (System.nanoTime() - killedNs) * 1e-9;
             // BAD once the last sample passes the age limit: at most the limit after the kill, plus
-            // room for thread scheduling on a loaded machine (the limit is the requirement, not a speed)
-            assertTrue(toBadS <= STALE_S + 0.25, "BAD too late: " + toBadS);
+            // room for thread scheduling on a loaded machine (the limit is the requirement, not a
+            // speed); far below the 15 s a client waiting for reconnects would need
+            assertTrue(toBadS <= STALE_S + 0.5, "BAD too late: " + toBadS);
             // and the value shown BAD carries its real (old) time stamp, at least the age limit behind
             assertTrue(tS[0] - in.updatedS(Signal.LEVEL_DP_A) > 0.0, "time stamp moved back by the sample's age");
 
