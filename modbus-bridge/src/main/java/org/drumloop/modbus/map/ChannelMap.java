@@ -288,7 +288,8 @@ public final class ChannelMap {
                 String us = cell("eng_unit");
                 unitEu = EngUnit.bySymbol(us);
                 if (unitEu == null || unitEu == EngUnit.BOOL) {
-                    problem("eng_unit", "unknown unit '" + us + "'; use an engineering unit symbol such as mm, barg, t/h, %, degC, mA");
+                    problem("eng_unit", (us.isEmpty() ? "missing" : "unknown unit '" + us + "'")
+                            + "; use an engineering unit symbol such as mm, barg, t/h, %, degC, mA");
                     unitEu = null;
                 } else if (signal != null && signal.kind() == Signal.Kind.ANALOG) {
                     if (unitEu == EngUnit.MA && !signal.isInput()) {
