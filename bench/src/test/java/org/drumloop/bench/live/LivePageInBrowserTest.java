@@ -110,6 +110,17 @@ class LivePageInBrowserTest {
             assertEquals(0.0, rec[3], 0.0, "no feed after the only running pump tripped");
             assertEquals("MANUAL", shown.get("auto"));
 
+            // trends: a 1 min window, then drag across the chart to zoom, then back to live
+            web.click("[data-window='60']");
+            web.waitFor("document.querySelector(\"[data-window='60']\").classList.contains('on')");
+            web.script("const c = document.getElementById('trend'); const r = c.getBoundingClientRect();"
+                    + "const ev = (type, x) => new MouseEvent(type, {bubbles: true, clientX: r.left + x, clientY: r.top + 40});"
+                    + "c.dispatchEvent(ev('mousedown', 200)); c.dispatchEvent(ev('mousemove', 400)); window.dispatchEvent(ev('mouseup', 400));"
+                    + "return true;", "[]");
+            web.waitFor("document.getElementById('trend-range').textContent.startsWith('zoomed')");
+            web.click("#trend-live");
+            web.waitFor("document.getElementById('trend-range').textContent === ''");
+
             byte[] png = web.screenshotPng();
             Path shot = targetDir().resolve("live-page-test-drum.png");
             Files.write(shot, png);
