@@ -37,7 +37,7 @@ public final class InterlocksCommand implements Callable<Integer> {
         }
         try {
             FirmwareConfig fc = FirmwareConfig.load(p);
-            o.println("Cause and effect: " + fc.interlocks().fileName());
+            o.println("Cause and effect: " + ConfigResolver.displayName(java.nio.file.Paths.get(fc.interlocks().fileName())));
             o.println();
             o.print(fc.interlocks().causeEffectText());
             o.println();
