@@ -154,6 +154,7 @@ public final class ScenarioParser {
             }
             Words w = new Words(file, i + 1, text);
             String key = w.next("statement").toLowerCase(Locale.ROOT);
+            text = text.replaceAll("\\s+", " "); // as shown in events and reports
             if (key.equals("at")) {
                 actions.add(action(w, text, durationS));
             } else if (key.equals("expect")) {
