@@ -102,7 +102,9 @@ final class Broadcaster implements Runnable {
                 }
             }
             double[] last = history.peekLast();
-            if (last == null || s.tS > last[0]) {
+            if (s.scan == 0) {
+                // nothing computed yet: no trend point
+            } else if (last == null || s.tS > last[0]) {
                 history.addLast(trendPoint(s));
             } else if (s.tS < last[0]) {
                 history.clear(); // session restarted

@@ -233,9 +233,6 @@ public final class LiveLoop {
             synchronized (log) {
                 log.add(line);
             }
-            if (!a.kind().operator()) {
-                event(tS, a.target().isEmpty() ? "plant" : a.target(), "INSTRUCTOR", a.scenarioStatement());
-            }
         }
     }
 }
