@@ -7,7 +7,7 @@ package org.drumloop.bench.live;
  * @param seq     running number given by the loop (gaps tell the page it missed something)
  * @param tS      simulated time [s]
  * @param tag     signal, interlock or equipment tag
- * @param kind    ALARM, TRIP, RESET, ACK, BYPASS, MODE, OPERATOR, FAULT, PLANT, INSTRUCTOR, ...
+ * @param kind    ALARM, TRIP, RESET, ACK, BYPASS, MODE, OPERATOR, FAULT, PLANT, ACTION, ...
  * @param message text as logged
  */
 public record LiveEvent(long seq, double tS, String tag, String kind, String message) {
