@@ -23,12 +23,12 @@ import picocli.CommandLine.Option;
  * page on 127.0.0.1 for training and bench work.
  */
 @Command(name = "live", mixinStandardHelpOptions = true, subcommands = LiveBenchCommand.class,
-        description = {"Run the closed loop in real time and watch and operate it in a web browser:",
-            "process diagram, trends, controller faceplate, alarms, and an instructor panel to inject faults",
-            "and load changes. Save the session as a scenario file and replay it with 'drumloop run'.",
+        description = {"Run the closed loop in real time and watch and operate it in a web browser: process diagram,"
+                + " trends, controller faceplate, alarms, and an instructor panel to inject faults and load changes."
+                + " Save the session as a scenario file and replay it with 'drumloop run'.",
             "",
-            "A simulator and test bench, not a safety system: interlock settings come from the boiler maker,",
-            "classification rules and local codes."},
+            "A simulator and test bench, not a safety system: interlock settings come from the boiler maker,"
+                + " classification rules and local codes."},
         exitCodeListHeading = "%nExit codes:%n", exitCodeList = {
             "0:stopped normally", "2:bad input or option (file:line: word: message)",
             "3:cannot listen on the address and port", "4:internal error"})
