@@ -66,7 +66,21 @@ class ReportInBrowserTest {
         String text = Files.readString(stdout, StandardCharsets.UTF_8);
         Files.deleteIfExists(stdout);
         Files.deleteIfExists(log);
+        deleteTree(profile);
         return text;
+    }
+
+    /** Remove a browser profile folder (best effort: a file still held open is left for the next clean). */
+    static void deleteTree(Path dir) throws IOException {
+        try (java.util.stream.Stream<Path> walk = Files.walk(dir)) {
+            for (Path p : (Iterable<Path>) walk.sorted(java.util.Comparator.reverseOrder())::iterator) {
+                try {
+                    Files.deleteIfExists(p);
+                } catch (IOException e) {
+                    // left behind under target/
+                }
+            }
+        }
     }
 
     @Test
