@@ -196,32 +196,43 @@ public final class LiveLoop {
             } else {
                 timing.record(late);
             }
-            if (!paused) {
-                applyActions();
-                session.scan();
-                scans++;
-                timeS = session.timeS();
-            } else if (!actions.isEmpty()) {
-                applyActions(); // operator actions while paused take effect at the next scan
-            }
-            session.drainEvents(sink);
-            LiveSnapshot s = snapshots.back();
-            session.fill(s);
-            s.scan = scans;
-            s.publishedNanos = System.nanoTime();
-            snapshots.publish();
-            Thread l = listener;
-            // 0.8 of the period: a scan that starts a little early must not skip a whole period
-            if (l != null && s.publishedNanos - lastSignalNs >= listenerPeriodNs - listenerPeriodNs / 5) {
-                lastSignalNs = s.publishedNanos;
-                LockSupport.unpark(l);
-            }
-            for (CompletableFuture<List<String>> f = scenarioRequests.poll(); f != null; f = scenarioRequests.poll()) {
-                f.complete(session.scenarioLines());
-            }
+            scanOnce();
         }
         for (CompletableFuture<List<String>> f = scenarioRequests.poll(); f != null; f = scenarioRequests.poll()) {
             f.completeExceptionally(new IllegalStateException("the loop has stopped"));
+        }
+    }
+
+    /**
+     * One iteration of the loop at a scan boundary: queued actions, the scan (unless paused),
+     * events, snapshot, wake the broadcaster, hand over a requested scenario. Allocates nothing
+     * unless an action, event or request is there.
+     */
+    void scanOnce() {
+        if (!paused) {
+            applyActions();
+            session.scan();
+            scans++;
+            timeS = session.timeS();
+        } else if (!actions.isEmpty()) {
+            applyActions(); // operator actions while paused take effect at the next scan
+        }
+        session.drainEvents(sink);
+        LiveSnapshot s = snapshots.back();
+        session.fill(s);
+        s.scan = scans;
+        s.publishedNanos = System.nanoTime();
+        snapshots.publish();
+        Thread l = listener;
+        // 0.8 of the period: a scan that starts a little early must not skip a whole period
+        if (l != null && s.publishedNanos - lastSignalNs >= listenerPeriodNs - listenerPeriodNs / 5) {
+            lastSignalNs = s.publishedNanos;
+            LockSupport.unpark(l);
+        }
+        if (!scenarioRequests.isEmpty()) {
+            for (CompletableFuture<List<String>> f = scenarioRequests.poll(); f != null; f = scenarioRequests.poll()) {
+                f.complete(session.scenarioLines());
+            }
         }
     }
 

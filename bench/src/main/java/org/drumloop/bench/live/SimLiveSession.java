@@ -177,7 +177,11 @@ public final class SimLiveSession implements LiveSession {
 
     @Override
     public void drainEvents(Sink sink) {
-        for (Object[] e : pending) {
+        if (pending.isEmpty()) {
+            return; // the usual scan: nothing to hand over, nothing allocated
+        }
+        for (int i = 0; i < pending.size(); i++) {
+            Object[] e = pending.get(i);
             sink.accept((Double) e[0], (String) e[1], (String) e[2], (String) e[3]);
         }
         pending.clear();
