@@ -186,6 +186,16 @@ class LiveApiTest {
     }
 
     @Test
+    void thePageLoadsNothingFromTheNetworkSoItWorksOffline() throws Exception {
+        for (String f : new String[] {"", "live.js", "live.css"}) {
+            // the only absolute URL allowed is the SVG namespace name, an identifier never fetched
+            String body = get(f).body().replace("http://www.w3.org/2000/svg", "");
+            assertTrue(!body.contains("http://") && !body.contains("https://") && !body.contains("//cdn"),
+                    (f.isEmpty() ? "index.html" : f) + " refers to the network");
+        }
+    }
+
+    @Test
     void theServerBindsTheLoopbackAddressByDefault() {
         assertTrue(URI.create(server.uri().toString()).getHost().equals("127.0.0.1"));
     }
