@@ -153,6 +153,18 @@ class FirmwareTest {
     }
 
     @Test
+    void manualAndAnOutputGivenInTheSameScanKeepTheOperatorsOutput() {
+        // An operator who selects manual and types an output in one action expects that output;
+        // the take-over value (bumpless) applies only when no output was given (common practice).
+        run(20);
+        fw.operator().requestAuto(false);
+        fw.operator().setManualOutput(0.40);
+        run(DT_S);
+        assertEquals(Mode.MANUAL, fw.status().mode);
+        assertEquals(0.40, out.value(Signal.FEED_VALVE_DEMAND), 1e-12);
+    }
+
+    @Test
     void theStandbyPumpStartsWhenTheDutyPumpTripsAndResetChangesOver() {
         run(10);
         assertTrue(out.bool(Signal.PUMP_A_RUN));
