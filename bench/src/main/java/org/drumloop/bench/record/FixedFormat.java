@@ -39,6 +39,15 @@ public final class FixedFormat {
         return pos;
     }
 
+    /** Append to a StringBuilder (for report text; allocates nothing beyond the builder's growth). */
+    public static StringBuilder append(StringBuilder sb, double v, int decimals) {
+        char[] buf = SCRATCH.get();
+        int n = append(buf, 0, v, decimals);
+        return sb.append(buf, 0, n);
+    }
+
+    private static final ThreadLocal<char[]> SCRATCH = ThreadLocal.withInitial(() -> new char[48]);
+
     static int appendLong(char[] buf, int pos, long v) {
         if (v == 0) {
             buf[pos++] = '0';

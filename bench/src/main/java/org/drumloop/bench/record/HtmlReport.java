@@ -274,9 +274,11 @@ public final class HtmlReport {
                 double x = ML + pw * Math.min(p.timeS(b), t1) / t1;
                 double ya = MT + ph * (hi - a) / (hi - lo);
                 double yc = MT + ph * (hi - c) / (hi - lo);
-                d.append(pen ? 'L' : 'M').append(String.format(Locale.ROOT, "%.1f %.1f", x, ya));
+                FixedFormat.append(d.append(pen ? 'L' : 'M'), x, 1).append(' ');
+                FixedFormat.append(d, ya, 1);
                 if (Math.abs(ya - yc) > 0.5) {
-                    d.append(String.format(Locale.ROOT, "L%.1f %.1f", x, yc));
+                    FixedFormat.append(d.append('L'), x, 1).append(' ');
+                    FixedFormat.append(d, yc, 1);
                 }
                 pen = true;
             }
