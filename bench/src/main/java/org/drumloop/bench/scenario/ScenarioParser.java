@@ -352,7 +352,7 @@ public final class ScenarioParser {
             case "stuck": k = "STUCK"; break;
             case "fail-low": k = "FAIL_LOW"; break;
             case "fail-high": k = "FAIL_HIGH"; break;
-            case "bias": k = "BIAS"; mag = w.quantity(si, "bias of " + target); break;
+            case "bias": k = "BIAS"; mag = w.deltaQuantity(si, "bias of " + target); break;
             case "drift": {
                 k = "DRIFT";
                 Words.Quantity q = w.rawQuantity("drift rate of " + target);
@@ -361,10 +361,7 @@ public final class ScenarioParser {
                             : "Pa/s"));
                 }
                 mag = new Words.Quantity(q.word(), q.value(), q.unit().substring(0, q.unit().length() - 2))
-                        .toSi(w, si, "drift rate of " + target);
-                if ("K".equals(si)) {
-                    mag = q.value(); // a rate: 1 degC/s = 1 K/s, no offset
-                }
+                        .deltaToSi(w, si, "drift rate of " + target);
                 break;
             }
             case "noise-burst":

@@ -121,6 +121,15 @@ final class Words {
         return q.toSi(this, siUnit, what);
     }
 
+    /**
+     * Read a difference of two values (a bias, a band, a rate) in SI: only the unit's factor applies,
+     * never its offset, so a bias of 5 degC is 5 K and a bias of 1 barg is 1e5 Pa.
+     */
+    double deltaQuantity(String siUnit, String what) throws ConfigException {
+        Quantity q = rawQuantity(what);
+        return q.deltaToSi(this, siUnit, what);
+    }
+
     /** Read a time ({@code s}, {@code min} or {@code h}) in seconds. */
     double timeS(String what) throws ConfigException {
         return quantity("s", what);
@@ -214,6 +223,11 @@ final class Words {
 
     /** A number as written with its unit, before conversion. */
     record Quantity(String word, double value, String unit) {
+        /** This quantity as a difference in SI: the unit's offset (degC, barg) cancels. */
+        double deltaToSi(Words w, String siUnit, String what) throws ConfigException {
+            return toSi(w, siUnit, what) - new Quantity(word, 0.0, unit).toSi(w, siUnit, what);
+        }
+
         double toSi(Words w, String siUnit, String what) throws ConfigException {
             if (!Double.isFinite(value)) {
                 throw w.error(word, "not a finite number (" + what + ")");

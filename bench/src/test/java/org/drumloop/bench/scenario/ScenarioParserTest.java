@@ -103,6 +103,19 @@ class ScenarioParserTest {
     }
 
     @Test
+    void biasesAndDriftRatesAreDifferencesSoTheUnitOffsetCancels() throws ConfigException {
+        Scenario s = parse(List.of("title T", "duration 900 s",
+                "at 10 s fault feed_temp_tx bias 5 degC",
+                "at 20 s fault feed_temp_tx drift 0.5 degC/s",
+                "at 30 s fault pressure_tx bias 0.2 barg"));
+        // A temperature difference of 5 degC is 5 K (ITS-90: the scales differ by an offset only)
+        assertEquals(5.0, s.actions().get(0).value(), 1e-12);
+        assertEquals(0.5, s.actions().get(1).value(), 1e-12);
+        // A gauge-pressure difference carries no atmosphere: 0.2 bar = 2e4 Pa (definition of the bar)
+        assertEquals(2.0e4, s.actions().get(2).value(), 1e-9);
+    }
+
+    @Test
     void operatorActionsParse() throws ConfigException {
         Scenario s = parse(List.of("title T", "duration 900 s",
                 "at 10 s manual", "at 20 s output 45 %", "at 30 s auto", "at 40 s reset", "at 50 s acknowledge",
