@@ -12,7 +12,7 @@ import org.drumloop.core.Firmware;
 import org.drumloop.core.FirmwareConfig;
 import org.drumloop.core.FirmwareStatus;
 import org.drumloop.core.config.ConfigException;
-import org.drumloop.core.exec.FailSafe;
+import org.drumloop.core.exec.HangMonitor;
 import org.drumloop.core.exec.RealTimeClock;
 import org.drumloop.core.exec.ScanExecutive;
 import org.drumloop.core.io.EngUnit;
@@ -111,7 +111,10 @@ public final class DriveRigCommand implements Callable<Integer> {
         try (RigClient client = link.isRtu() ? RigClient.rtu(m, link.serial(), opts) : RigClient.tcp(m, link.tcp(null), opts);
              Loopback.Events events = new Loopback.Events(out == null ? null : prepare(out).resolve("events.csv"), o)) {
             client.start();
-            ScanExecutive ex = new ScanExecutive(new RealTimeClock(), client, fw, fc.scanPeriodS(), FailSafe.defaults(), fw.events());
+            ScanExecutive ex = new ScanExecutive(new RealTimeClock(), client, fw, fc.scanPeriodS(), fc.interlocks().failSafe(), fw.events());
+            // a scan that never returns is caught from another thread and the fail-safe outputs written
+            HangMonitor hang = new HangMonitor(ex);
+            Thread hangThread = hang.start();
             double[] nextPrintS = {10.0};
             ex.setListener((k, tS, in, outImg) -> {
                 fw.events().drainTo(events);
@@ -142,6 +145,8 @@ public final class DriveRigCommand implements Callable<Integer> {
                     ex.runUntilStopped();
                 }
             } finally {
+                hang.stop();
+                hangThread.join(5000);
                 try {
                     Runtime.getRuntime().removeShutdownHook(hook);
                 } catch (IllegalStateException e) {

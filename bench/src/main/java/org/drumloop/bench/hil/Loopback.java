@@ -10,7 +10,7 @@ import java.util.Locale;
 
 import org.drumloop.core.Firmware;
 import org.drumloop.core.FirmwareConfig;
-import org.drumloop.core.exec.FailSafe;
+import org.drumloop.core.exec.HangMonitor;
 import org.drumloop.core.exec.RealTimeClock;
 import org.drumloop.core.exec.ScanExecutive;
 import org.drumloop.core.exec.ScanStatistics;
@@ -92,6 +92,8 @@ public final class Loopback {
             ScanExecutive ex;
             Thread plantThread = null;
             PlantThread pt = null;
+            HangMonitor hang = null;
+            Thread hangThread = null;
             if (o.lockstep()) {
                 ProcessIo io = new ProcessIo() {
                     @Override
@@ -105,7 +107,7 @@ public final class Loopback {
                         client.writeOutputs(out, tS);
                     }
                 };
-                ex = new ScanExecutive(SimulatedClock.asFastAsPossible(), io, firmware, dtS, FailSafe.defaults(), firmware.events());
+                ex = new ScanExecutive(SimulatedClock.asFastAsPossible(), io, firmware, dtS, fwConfig.interlocks().failSafe(), firmware.events());
                 ex.setListener((k, tS, in, out) -> {
                     firmware.events().drainTo(events);
                     client.flushOutputs();
@@ -122,10 +124,16 @@ public final class Loopback {
                 plantThread = new Thread(pt, "plant");
                 plantThread.setDaemon(true);
                 plantThread.start();
-                ex = new ScanExecutive(new RealTimeClock(), client, firmware, dtS, FailSafe.defaults(), firmware.events());
+                ex = new ScanExecutive(new RealTimeClock(), client, firmware, dtS, fwConfig.interlocks().failSafe(), firmware.events());
                 ex.setListener((k, tS, in, out) -> firmware.events().drainTo(events));
+                hang = new HangMonitor(ex);
+                hangThread = hang.start();
             }
             ex.runUntil(o.durationS() - dtS);
+            if (hang != null) {
+                hang.stop();
+                hangThread.join(5000);
+            }
             if (plantThread != null) {
                 pt.stop();
                 plantThread.join(5000);
