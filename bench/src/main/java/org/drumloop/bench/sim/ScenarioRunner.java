@@ -25,8 +25,6 @@ import org.drumloop.bench.record.TrendWriter;
 import org.drumloop.bench.scenario.Action;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.core.FirmwareConfig;
-import org.drumloop.core.Mode;
-import org.drumloop.core.OperatorCommands;
 import org.drumloop.core.config.ConfigException;
 import org.drumloop.core.exec.SimulatedClock;
 import org.drumloop.core.safety.InterlockSet;
@@ -261,11 +259,10 @@ public final class ScenarioRunner {
         for (int i = 0; i < na; i++) {
             Action a = actions.get(i);
             if (a.type() == Action.Type.FAULT) {
-                faults[i] = new Fault(Fault.Kind.valueOf(a.label()), a.target(), a.value(), a.overS());
+                faults[i] = ActionApplier.faultOf(a);
             }
         }
-        double[] rampFrom = new double[na];
-        boolean[] rampOn = new boolean[na];
+        ActionApplier applier = new ActionApplier(s);
         Expectation[] ex = sc.expectations().toArray(new Expectation[0]);
         for (Expectation e : ex) {
             e.start();
@@ -299,19 +296,10 @@ public final class ScenarioRunner {
             while (next < na && actions.get(next).atS() <= t + TIME_EPS_S) {
                 Action a = actions.get(next);
                 events.add(t, "scenario", "ACTION", a.text());
-                apply(s, a, faults[next], rampFrom, rampOn, next, actions);
+                applier.apply(a, faults[next]);
                 next++;
             }
-            for (int i = 0; i < na; i++) {
-                if (rampOn[i]) {
-                    Action a = actions.get(i);
-                    double x = Math.min(1.0, (t - a.atS()) / a.overS());
-                    set(s, a.input(), rampFrom[i] + (a.value() - rampFrom[i]) * x);
-                    if (x >= 1.0) {
-                        rampOn[i] = false;
-                    }
-                }
-            }
+            applier.updateRamps(t);
             s.scan();
             for (Expectation e : ex) {
                 e.observe(f);
@@ -350,96 +338,5 @@ public final class ScenarioRunner {
         return new RunSummary(sc, setup.plantPath().getFileName().toString(),
                 setup.tuningPath().getFileName().toString(), endS, wallS, s.scans(), outcomes, fig, plot,
                 events.kept(), limits(s.firmware().interlocks()), s.firmware().events().lost(), p.invalid());
-    }
-
-    private static void apply(SimulationSession s, Action a, Fault fault, double[] rampFrom, boolean[] rampOn,
-                              int index, List<Action> actions) {
-        OperatorCommands op = s.firmware().operator();
-        Plant p = s.plant();
-        switch (a.type()) {
-            case SET:
-                cancelRamps(a.input(), rampOn, actions);
-                set(s, a.input(), a.value());
-                break;
-            case RAMP:
-                cancelRamps(a.input(), rampOn, actions);
-                rampFrom[index] = current(s, a.input());
-                rampOn[index] = true;
-                break;
-            case MODE:
-                op.requestMode(Mode.byLabel(a.label()));
-                break;
-            case AUTO:
-                op.requestAuto(true);
-                break;
-            case MANUAL:
-                op.requestAuto(false);
-                break;
-            case RESET:
-                op.reset();
-                break;
-            case ACKNOWLEDGE:
-                op.acknowledge(a.target());
-                break;
-            case BYPASS:
-                op.bypass(a.target(), a.reason(), a.value());
-                break;
-            case FAULT:
-                p.inject(fault);
-                break;
-            case CLEAR:
-                if ("all".equals(a.target())) {
-                    p.clearAll();
-                } else if (a.label() == null) {
-                    for (Fault.Kind k : TRANSMITTER_FAULTS) {
-                        p.clear(k, a.target());
-                    }
-                } else {
-                    p.clear(Fault.Kind.valueOf(a.label()), a.target());
-                }
-                break;
-            default:
-                break;
-        }
-    }
-
-    private static final Fault.Kind[] TRANSMITTER_FAULTS = {
-        Fault.Kind.STUCK, Fault.Kind.DRIFT, Fault.Kind.BIAS, Fault.Kind.FAIL_LOW, Fault.Kind.FAIL_HIGH,
-        Fault.Kind.NOISE_BURST,
-    };
-
-    private static void cancelRamps(Action.Input in, boolean[] rampOn, List<Action> actions) {
-        for (int i = 0; i < rampOn.length; i++) {
-            if (rampOn[i] && actions.get(i).input() == in) {
-                rampOn[i] = false;
-            }
-        }
-    }
-
-    /** Apply a scenario input value (SI). */
-    static void set(SimulationSession s, Action.Input in, double v) {
-        Plant p = s.plant();
-        switch (in) {
-            case STEAM_DEMAND: s.setSteamDemand(v); break;
-            case FEED_TEMP: p.setFeedTemperatureK(v); break;
-            case PRESSURE_SETPOINT: s.setPressureSetpointPa(v); break;
-            case FIRING: p.setFiringManual(v); break;
-            case SETPOINT: s.firmware().operator().setLevelSetpoint(v); break;
-            case OUTPUT: s.firmware().operator().setManualOutput(v); break;
-            default: break;
-        }
-    }
-
-    /** The present value of a scenario input, where a ramp starts from. */
-    static double current(SimulationSession s, Action.Input in) {
-        switch (in) {
-            case STEAM_DEMAND: return s.steamDemandFrac();
-            case FEED_TEMP: return s.plant().feedTempK();
-            case PRESSURE_SETPOINT: return s.pressureSetpointPa();
-            case FIRING: return s.plant().firingFrac();
-            case SETPOINT: return s.firmware().status().levelSetpointM;
-            case OUTPUT: return s.firmware().status().valveDemandFrac;
-            default: return 0.0;
-        }
     }
 }

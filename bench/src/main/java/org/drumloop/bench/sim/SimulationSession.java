@@ -20,7 +20,7 @@ import org.drumloop.plant.PlantConfig;
  *
  * <p>Not thread-safe: drive it from one thread (a paced runner, a live page's loop).
  */
-public final class SimulationSession {
+public final class SimulationSession implements ActionApplier.Loop {
     /** Receives sequence-of-events entries ({@code kind} = the SOE kind) and plant events ({@code kind} = PLANT). */
     @FunctionalInterface
     public interface EventSink {
@@ -70,8 +70,10 @@ public final class SimulationSession {
 
     public void setEventSink(EventSink s) { this.sink = s == null ? (t, tag, kind, msg) -> { } : s; }
 
+    @Override
     public Plant plant() { return plant; }
 
+    @Override
     public Firmware firmware() { return firmware; }
 
     public PlantIo io() { return io; }
@@ -98,17 +100,21 @@ public final class SimulationSession {
     public ProcessImage outputs() { return out; }
 
     /** Consumer steam demand [fraction of rating]; recorded as the steam_demand channel. */
+    @Override
     public void setSteamDemand(double frac) {
         steamDemandFrac = frac;
         plant.setSteamDemand(frac);
     }
 
+    @Override
     public double steamDemandFrac() { return steamDemandFrac; }
 
     /** Plant pressure controller setpoint as last set through the session [Pa abs]. */
+    @Override
     public double pressureSetpointPa() { return pressureSetpointPa; }
 
     /** Set the plant's pressure controller setpoint [Pa abs]. */
+    @Override
     public void setPressureSetpointPa(double pPa) {
         pressureSetpointPa = pPa;
         plant.setPressureSetpointPa(pPa);
