@@ -17,6 +17,7 @@ import org.drumloop.bench.expect.InterlockExpectation;
 import org.drumloop.bench.expect.ModeExpectation;
 import org.drumloop.bench.expect.SettleExpectation;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 
 /**
  * Reads {@code .scenario} files: one statement a line, {@code #} starts a comment, every number
@@ -63,86 +64,92 @@ public final class ScenarioParser {
         long seed = 1;
         double loadFrac = Double.NaN;
         boolean swellComp = true;
+        List<ConfigException> problems = new ArrayList<>();
         // pass 1: header
         for (int i = 0; i < lines.size(); i++) {
             String text = strip(lines.get(i));
             if (text.isEmpty()) {
                 continue;
             }
-            Words w = new Words(file, i + 1, text);
-            String key = w.next("statement").toLowerCase(Locale.ROOT);
-            switch (key) {
-                case "title":
-                    if (title != null) {
-                        throw w.error(key, "title given twice");
+            try {
+                Words w = new Words(file, i + 1, text);
+                String key = w.next("statement").toLowerCase(Locale.ROOT);
+                switch (key) {
+                    case "title":
+                        if (title != null) {
+                            throw w.error(key, "title given twice");
+                        }
+                        title = w.rest();
+                        if (title.isEmpty()) {
+                            throw w.error(key, "title is empty");
+                        }
+                        break;
+                    case "description":
+                        description.append(description.length() == 0 ? "" : " ").append(w.rest());
+                        break;
+                    case "plant":
+                        plant = w.next("plant name or file");
+                        plantLine = i + 1;
+                        w.end();
+                        break;
+                    case "tuning":
+                        tuning = w.next("tuning name or file");
+                        tuningLine = i + 1;
+                        w.end();
+                        break;
+                    case "duration":
+                        if (!Double.isNaN(durationS)) {
+                            throw w.error(key, "duration given twice");
+                        }
+                        durationS = w.timeS("duration");
+                        if (!(durationS > 0 && durationS <= MAX_DURATION_S)) {
+                            throw w.error(w.last(), "duration must be above 0 and at most 7 days");
+                        }
+                        w.end();
+                        break;
+                    case "seed": {
+                        String s = w.next("seed");
+                        try {
+                            seed = Long.parseLong(s);
+                        } catch (NumberFormatException e) {
+                            throw w.error(s, "seed must be a whole number");
+                        }
+                        w.end();
+                        break;
                     }
-                    title = w.rest();
-                    if (title.isEmpty()) {
-                        throw w.error(key, "title is empty");
+                    case "load":
+                        loadFrac = w.quantity("1", "initial load");
+                        if (!(loadFrac >= 0 && loadFrac <= 1.2)) {
+                            throw w.error(w.last(), "initial load must be 0..120 %");
+                        }
+                        w.end();
+                        break;
+                    case "swell_comp": {
+                        String v = w.next("on or off").toLowerCase(Locale.ROOT);
+                        if (!v.equals("on") && !v.equals("off")) {
+                            throw w.error(v, "swell_comp is 'on' or 'off'");
+                        }
+                        swellComp = v.equals("on");
+                        w.end();
+                        break;
                     }
-                    break;
-                case "description":
-                    description.append(description.length() == 0 ? "" : " ").append(w.rest());
-                    break;
-                case "plant":
-                    plant = w.next("plant name or file");
-                    plantLine = i + 1;
-                    w.end();
-                    break;
-                case "tuning":
-                    tuning = w.next("tuning name or file");
-                    tuningLine = i + 1;
-                    w.end();
-                    break;
-                case "duration":
-                    if (!Double.isNaN(durationS)) {
-                        throw w.error(key, "duration given twice");
-                    }
-                    durationS = w.timeS("duration");
-                    if (!(durationS > 0 && durationS <= MAX_DURATION_S)) {
-                        throw w.error(w.last(), "duration must be above 0 and at most 7 days");
-                    }
-                    w.end();
-                    break;
-                case "seed": {
-                    String s = w.next("seed");
-                    try {
-                        seed = Long.parseLong(s);
-                    } catch (NumberFormatException e) {
-                        throw w.error(s, "seed must be a whole number");
-                    }
-                    w.end();
-                    break;
+                    case "at":
+                    case "expect":
+                        break;
+                    default:
+                        throw w.error(key, "unknown statement (title, description, plant, tuning, duration, seed,"
+                                + " load, swell_comp, at, expect)");
                 }
-                case "load":
-                    loadFrac = w.quantity("1", "initial load");
-                    if (!(loadFrac >= 0 && loadFrac <= 1.2)) {
-                        throw w.error(w.last(), "initial load must be 0..120 %");
-                    }
-                    w.end();
-                    break;
-                case "swell_comp": {
-                    String v = w.next("on or off").toLowerCase(Locale.ROOT);
-                    if (!v.equals("on") && !v.equals("off")) {
-                        throw w.error(v, "swell_comp is 'on' or 'off'");
-                    }
-                    swellComp = v.equals("on");
-                    w.end();
-                    break;
-                }
-                case "at":
-                case "expect":
-                    break;
-                default:
-                    throw w.error(key, "unknown statement (title, description, plant, tuning, duration, seed,"
-                            + " load, swell_comp, at, expect)");
+            } catch (ConfigException e) {
+                problems.add(e); // go on: the user sees every problem of the file at once
             }
         }
         if (title == null) {
-            throw new ConfigException(file, 0, "title", "missing: every scenario needs a title line");
+            problems.add(new ConfigException(file, 0, "title", "missing: every scenario needs a title line"));
         }
         if (Double.isNaN(durationS)) {
-            throw new ConfigException(file, 0, "duration", "missing: say how long to run, e.g. 'duration 900 s'");
+            problems.add(new ConfigException(file, 0, "duration", "missing: say how long to run, e.g. 'duration 900 s'"));
+            durationS = MAX_DURATION_S; // still check the timed statements against the longest run
         }
         // pass 2: timed statements and expectations
         List<Action> actions = new ArrayList<>();
@@ -152,14 +159,22 @@ public final class ScenarioParser {
             if (text.isEmpty()) {
                 continue;
             }
-            Words w = new Words(file, i + 1, text);
-            String key = w.next("statement").toLowerCase(Locale.ROOT);
-            text = text.replaceAll("\\s+", " "); // as shown in events and reports
-            if (key.equals("at")) {
-                actions.add(action(w, text, durationS));
-            } else if (key.equals("expect")) {
-                expectations.add(expectation(w, text, durationS));
+            try {
+                Words w = new Words(file, i + 1, text);
+                String key = w.next("statement").toLowerCase(Locale.ROOT);
+                text = text.replaceAll("\\s+", " "); // as shown in events and reports
+                if (key.equals("at")) {
+                    actions.add(action(w, text, durationS));
+                } else if (key.equals("expect")) {
+                    expectations.add(expectation(w, text, durationS));
+                }
+            } catch (ConfigException e) {
+                problems.add(e);
             }
+        }
+        if (!problems.isEmpty()) {
+            problems.sort(Comparator.comparingInt(ConfigException::line));
+            throw problems.size() == 1 ? problems.get(0) : new ConfigProblems(problems);
         }
         actions.sort(Comparator.comparingDouble(Action::atS)); // stable: file order for equal times
         if (Double.isNaN(loadFrac)) {

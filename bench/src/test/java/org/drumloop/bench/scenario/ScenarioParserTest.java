@@ -2,6 +2,7 @@ package org.drumloop.bench.scenario;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -15,6 +16,7 @@ import org.drumloop.bench.expect.InterlockExpectation;
 import org.drumloop.bench.expect.ModeExpectation;
 import org.drumloop.bench.expect.SettleExpectation;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -205,6 +207,22 @@ class ScenarioParserTest {
         assertEquals("title", e.key());
         e = assertThrows(ConfigException.class, () -> parse(List.of("title x")));
         assertEquals("duration", e.key());
+    }
+
+    @Test
+    void everyBadLineIsReportedAtOnceInFileOrder() {
+        ConfigException e = assertThrows(ConfigException.class, () -> parse(List.of("title T", "duration 100 s",
+                "at 10 s set stem_demand 50 %",
+                "expect drum_level between -80 and 80 furlongs",
+                "at 500 s reset")));
+        ConfigProblems all = assertInstanceOf(ConfigProblems.class, e);
+        assertEquals(3, all.problems().size(), e.getMessage());
+        assertEquals(3, all.problems().get(0).line());
+        assertEquals("stem_demand", all.problems().get(0).key());
+        assertEquals(4, all.problems().get(1).line());
+        assertEquals("furlongs", all.problems().get(1).key());
+        assertEquals(5, all.problems().get(2).line());
+        assertEquals(3, e.getMessage().split("\\R").length, "one file:line: line per problem");
     }
 
     @Test
