@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 
 /**
@@ -33,62 +34,76 @@ public final class PlantFile {
         double[] values = new double[n];
         String[] texts = new String[n];
         int[] at = new int[n];
+        List<PlantConfigException> problems = new ArrayList<>();
         for (int i = 0; i < lines.size(); i++) {
             int lineNo = i + 1;
             String line = stripComment(lines.get(i)).strip();
             if (line.isEmpty()) {
                 continue;
             }
-            String[] tok = line.split("\\s+");
-            String word = tok[0];
-            PlantKey key = PlantKey.byKey(word);
-            if (key == null) {
-                throw new PlantConfigException(fileName, lineNo, word, "unknown key");
-            }
-            if (at[key.ordinal()] != 0) {
-                throw new PlantConfigException(fileName, lineNo, word,
-                        "given twice (first on line " + at[key.ordinal()] + ")");
-            }
-            at[key.ordinal()] = lineNo;
-            switch (key.dim) {
-                case TEXT -> {
-                    String rest = line.substring(word.length()).strip();
-                    if (rest.length() >= 2 && rest.startsWith("\"") && rest.endsWith("\"")) {
-                        rest = rest.substring(1, rest.length() - 1);
-                    }
-                    if (rest.isEmpty()) {
-                        throw new PlantConfigException(fileName, lineNo, word, "text is missing");
-                    }
-                    texts[key.ordinal()] = rest;
-                }
-                case CHOICE -> {
-                    if (tok.length != 2) {
-                        throw new PlantConfigException(fileName, lineNo, word,
-                                "expected one of: " + String.join(", ", key.choices));
-                    }
-                    int idx = -1;
-                    for (int c = 0; c < key.choices.length; c++) {
-                        if (key.choices[c].equals(tok[1])) {
-                            idx = c;
-                        }
-                    }
-                    if (idx < 0) {
-                        throw new PlantConfigException(fileName, lineNo, word, "'" + tok[1]
-                                + "' is not one of: " + String.join(", ", key.choices));
-                    }
-                    values[key.ordinal()] = idx;
-                }
-                default -> values[key.ordinal()] = number(fileName, lineNo, key, tok);
+            try {
+                parseLine(fileName, lineNo, line, values, texts, at);
+            } catch (PlantConfigException e) {
+                problems.add(e); // go on: the user sees every problem of the file at once
             }
         }
         for (PlantKey k : PlantKey.values()) {
             if (at[k.ordinal()] == 0) {
-                throw new PlantConfigException(fileName, 0, k.key(), "missing (every key is required)");
+                problems.add(new PlantConfigException(fileName, 0, k.key(), "missing (every key is required)"));
             }
+        }
+        if (!problems.isEmpty()) {
+            throw problems.size() == 1 ? problems.get(0) : new PlantConfigException(problems);
         }
         PlantConfig cfg = new PlantConfig(fileName, values, texts, at);
         crossCheck(cfg);
         return cfg;
+    }
+
+    /** One {@code key value unit} line into the value arrays. */
+    private static void parseLine(String fileName, int lineNo, String line, double[] values, String[] texts, int[] at)
+            throws PlantConfigException {
+        String[] tok = line.split("\\s+");
+        String word = tok[0];
+        PlantKey key = PlantKey.byKey(word);
+        if (key == null) {
+            throw new PlantConfigException(fileName, lineNo, word, "unknown key");
+        }
+        if (at[key.ordinal()] != 0) {
+            throw new PlantConfigException(fileName, lineNo, word,
+                    "given twice (first on line " + at[key.ordinal()] + ")");
+        }
+        at[key.ordinal()] = lineNo;
+        switch (key.dim) {
+            case TEXT -> {
+                String rest = line.substring(word.length()).strip();
+                if (rest.length() >= 2 && rest.startsWith("\"") && rest.endsWith("\"")) {
+                    rest = rest.substring(1, rest.length() - 1);
+                }
+                if (rest.isEmpty()) {
+                    throw new PlantConfigException(fileName, lineNo, word, "text is missing");
+                }
+                texts[key.ordinal()] = rest;
+            }
+            case CHOICE -> {
+                if (tok.length != 2) {
+                    throw new PlantConfigException(fileName, lineNo, word,
+                            "expected one of: " + String.join(", ", key.choices));
+                }
+                int idx = -1;
+                for (int c = 0; c < key.choices.length; c++) {
+                    if (key.choices[c].equals(tok[1])) {
+                        idx = c;
+                    }
+                }
+                if (idx < 0) {
+                    throw new PlantConfigException(fileName, lineNo, word, "'" + tok[1]
+                            + "' is not one of: " + String.join(", ", key.choices));
+                }
+                values[key.ordinal()] = idx;
+            }
+            default -> values[key.ordinal()] = number(fileName, lineNo, key, tok);
+        }
     }
 
     private static String stripComment(String line) {

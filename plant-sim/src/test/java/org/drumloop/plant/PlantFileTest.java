@@ -64,6 +64,21 @@ class PlantFileTest {
     }
 
     @Test
+    void everyProblemOfAFileIsReportedAtOnce() throws Exception {
+        List<String> l = auxLines();
+        l.add(3, "drum_colour 3 m");
+        int i = lineOf(l, "drum_volume");
+        l.set(i, "drum_volume 4.0 kg");
+        l.remove(lineOf(l, "riser_volume"));
+        PlantConfigException e = failing(l);
+        assertEquals(3, e.problems().size(), e.getMessage());
+        assertEquals("drum_colour", e.problems().get(0).key());
+        assertEquals("drum_volume", e.problems().get(1).key());
+        assertEquals("riser_volume", e.problems().get(2).key());
+        assertEquals(3, e.getMessage().split("\\R").length, "one file:line: line per problem");
+    }
+
+    @Test
     void missingKeyIsReported() throws Exception {
         List<String> l = auxLines();
         l.remove(lineOf(l, "riser_volume"));

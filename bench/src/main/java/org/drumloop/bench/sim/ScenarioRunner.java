@@ -26,6 +26,7 @@ import org.drumloop.bench.scenario.Action;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.core.FirmwareConfig;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 import org.drumloop.core.exec.SimulatedClock;
 import org.drumloop.core.safety.InterlockSet;
 import org.drumloop.core.safety.InterlockSpec;
@@ -127,14 +128,12 @@ public final class ScenarioRunner {
         try {
             return PlantFile.load(p);
         } catch (PlantConfigException e) {
-            throw new ConfigException(e.file(), e.line(), e.key(), problem(e));
+            List<ConfigException> all = new ArrayList<>();
+            for (PlantConfigException p1 : e.problems()) {
+                all.add(new ConfigException(p1.file(), p1.line(), p1.key(), p1.problem()));
+            }
+            throw all.size() == 1 ? all.get(0) : new ConfigProblems(all);
         }
-    }
-
-    private static String problem(PlantConfigException e) {
-        String m = e.getMessage();
-        String prefix = e.file() + ":" + e.line() + ": " + (e.key() == null || e.key().isEmpty() ? "" : e.key() + ": ");
-        return m != null && m.startsWith(prefix) ? m.substring(prefix.length()) : m;
     }
 
     /** Bind a scenario's names (interlock tags, modes, swell compensation) to a firmware. */
