@@ -4,11 +4,13 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 import org.drumloop.core.control.PidParams;
 import org.drumloop.core.safety.InterlockConfig;
 import org.drumloop.core.safety.InterlockFile;
@@ -77,7 +79,9 @@ public final class FirmwareConfig {
 
     private static Parsed parseLines(String file, List<String> lines) throws ConfigException {
         Parsed p = new Parsed();
+        List<ConfigException> problems = new ArrayList<>();
         String section = null;
+        boolean badSection = false;
         for (int ln = 1; ln <= lines.size(); ln++) {
             String text = lines.get(ln - 1);
             int hash = text.indexOf('#');
@@ -88,74 +92,31 @@ public final class FirmwareConfig {
             if (text.isEmpty()) {
                 continue;
             }
-            if (text.startsWith("[")) {
-                if (!text.endsWith("]")) {
-                    throw new ConfigException(file, ln, text, "a section line reads [name]");
-                }
-                section = text.substring(1, text.length() - 1).strip();
-                if (!TuningKey.isSection(section)) {
-                    throw new ConfigException(file, ln, section, "unknown section");
-                }
-                continue;
-            }
-            String[] f = text.split("\\s+");
-            if (section == null) {
-                throw new ConfigException(file, ln, f[0], "key before the first [section]");
-            }
-            TuningKey k = TuningKey.find(section, f[0]);
-            if (k == null) {
-                throw new ConfigException(file, ln, section + "." + f[0], "unknown key");
-            }
-            if (p.lineOf.containsKey(k)) {
-                throw new ConfigException(file, ln, k.qualified(), "given twice (first on line " + p.lineOf.get(k) + ")");
-            }
-            p.lineOf.put(k, ln);
-            if (k.dim == null) {
-                if (f.length != 2) {
-                    throw new ConfigException(file, ln, k.qualified(), "expected one word: " + choicesText(k));
-                }
-                String w = k.choices.length == 1 && k.choices[0].equals("*") ? f[1] : f[1].toLowerCase(Locale.ROOT);
-                if (!(k.choices.length == 1 && k.choices[0].equals("*")) && !contains(k.choices, w)) {
-                    throw new ConfigException(file, ln, k.qualified(), "'" + f[1] + "' is not one of " + choicesText(k));
-                }
-                p.word.put(k, w);
-                continue;
-            }
-            if (k.name.equals("integral_time") && f.length == 2 && f[1].equals("off")) {
-                p.num.put(k, Double.POSITIVE_INFINITY);
-                continue;
-            }
-            if (f.length != 3) {
-                throw new ConfigException(file, ln, k.qualified(), "expected a value and a unit in " + k.dim
-                        + (f.length == 2 ? " (the unit is missing)" : ""));
-            }
-            double v;
             try {
-                v = Double.parseDouble(f[1]);
-            } catch (NumberFormatException e) {
-                throw new ConfigException(file, ln, k.qualified(), "'" + f[1] + "' is not a number");
+                if (text.startsWith("[")) {
+                    badSection = true; // until the line proves good; its keys are then skipped, not reported again
+                    if (!text.endsWith("]")) {
+                        throw new ConfigException(file, ln, text, "a section line reads [name]");
+                    }
+                    section = text.substring(1, text.length() - 1).strip();
+                    if (!TuningKey.isSection(section)) {
+                        throw new ConfigException(file, ln, section, "unknown section");
+                    }
+                    badSection = false;
+                } else if (!badSection) {
+                    keyLine(file, ln, text, section, p);
+                }
+            } catch (ConfigException e) {
+                problems.add(e); // go on: the user sees every problem of the file at once
             }
-            if (!Double.isFinite(v)) {
-                throw new ConfigException(file, ln, k.qualified(), "value must be finite");
-            }
-            TuningUnits.Unit u = TuningUnits.parse(f[2]);
-            if (u == null) {
-                throw new ConfigException(file, ln, k.qualified(), "unknown unit '" + f[2] + "'");
-            }
-            if (!u.dim().equals(k.dim)) {
-                throw new ConfigException(file, ln, k.qualified(), "unit '" + f[2] + "' is " + u.dim() + ", expected " + k.dim);
-            }
-            double si = u.toSi(v);
-            if (si < k.minSi - 1e-12 * Math.abs(k.minSi) || si > k.maxSi + 1e-12 * Math.abs(k.maxSi)) {
-                throw new ConfigException(file, ln, k.qualified(), "out of range: " + fmt(si) + " " + k.dim
-                        + " is outside " + fmt(k.minSi) + " to " + fmt(k.maxSi) + " " + k.dim);
-            }
-            p.num.put(k, si);
         }
         for (TuningKey k : TuningKey.values()) {
             if (!p.lineOf.containsKey(k)) {
-                throw new ConfigException(file, 0, k.qualified(), "missing key");
+                problems.add(new ConfigException(file, 0, k.qualified(), "missing key"));
             }
+        }
+        if (!problems.isEmpty()) {
+            throw problems.size() == 1 ? problems.get(0) : new ConfigProblems(problems);
         }
         order(file, p, TuningKey.TAP_LOW, TuningKey.TAP_HIGH, "tap_high must be above tap_low");
         order(file, p, TuningKey.DP_RANGE_LOW, TuningKey.DP_RANGE_HIGH, "range_high must be above range_low");
@@ -174,6 +135,63 @@ public final class FirmwareConfig {
                     "the calibrated range must lie between the tappings");
         }
         return p;
+    }
+
+    /** One {@code key value unit} (or {@code key word}) line of a section into {@code p}. */
+    private static void keyLine(String file, int ln, String text, String section, Parsed p) throws ConfigException {
+        String[] f = text.split("\\s+");
+        if (section == null) {
+            throw new ConfigException(file, ln, f[0], "key before the first [section]");
+        }
+        TuningKey k = TuningKey.find(section, f[0]);
+        if (k == null) {
+            throw new ConfigException(file, ln, section + "." + f[0], "unknown key");
+        }
+        if (p.lineOf.containsKey(k)) {
+            throw new ConfigException(file, ln, k.qualified(), "given twice (first on line " + p.lineOf.get(k) + ")");
+        }
+        p.lineOf.put(k, ln);
+        if (k.dim == null) {
+            if (f.length != 2) {
+                throw new ConfigException(file, ln, k.qualified(), "expected one word: " + choicesText(k));
+            }
+            String w = k.choices.length == 1 && k.choices[0].equals("*") ? f[1] : f[1].toLowerCase(Locale.ROOT);
+            if (!(k.choices.length == 1 && k.choices[0].equals("*")) && !contains(k.choices, w)) {
+                throw new ConfigException(file, ln, k.qualified(), "'" + f[1] + "' is not one of " + choicesText(k));
+            }
+            p.word.put(k, w);
+            return;
+        }
+        if (k.name.equals("integral_time") && f.length == 2 && f[1].equals("off")) {
+            p.num.put(k, Double.POSITIVE_INFINITY);
+            return;
+        }
+        if (f.length != 3) {
+            throw new ConfigException(file, ln, k.qualified(), "expected a value and a unit in " + k.dim
+                    + (f.length == 2 ? " (the unit is missing)" : ""));
+        }
+        double v;
+        try {
+            v = Double.parseDouble(f[1]);
+        } catch (NumberFormatException e) {
+            throw new ConfigException(file, ln, k.qualified(), "'" + f[1] + "' is not a number");
+        }
+        if (!Double.isFinite(v)) {
+            throw new ConfigException(file, ln, k.qualified(), "value must be finite");
+        }
+        TuningUnits.Unit u = TuningUnits.parse(f[2]);
+        if (u == null) {
+            throw new ConfigException(file, ln, k.qualified(), "unknown unit '" + f[2] + "'");
+        }
+        if (!u.dim().equals(k.dim)) {
+            throw new ConfigException(file, ln, k.qualified(), "unit '" + f[2] + "' is " + u.dim() + ", expected " + k.dim);
+        }
+        double si = u.toSi(v);
+        if (si < k.minSi - 1e-12 * Math.abs(k.minSi) || si > k.maxSi + 1e-12 * Math.abs(k.maxSi)) {
+            throw new ConfigException(file, ln, k.qualified(), "out of range: " + fmt(si) + " " + k.dim
+                    + " is outside " + fmt(k.minSi) + " to " + fmt(k.maxSi) + " " + k.dim);
+        }
+        p.num.put(k, si);
     }
 
     private static void order(String file, Parsed p, TuningKey low, TuningKey high, String msg) throws ConfigException {

@@ -2,6 +2,7 @@ package org.drumloop.core;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -11,6 +12,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 import org.drumloop.core.safety.InterlockConfig;
 import org.junit.jupiter.api.Test;
 
@@ -56,6 +58,21 @@ class FirmwareConfigTest {
             }
         }
         return -1;
+    }
+
+    @Test
+    void everyProblemOfATuningFileIsReportedAtOnce() throws Exception {
+        List<String> l = with(defaultLines(), "single_element", "gain", "gain 0.2 furlong");
+        l = with(l, "single_element", "integral_time", "integral_time -5 s");
+        l.add("bogus_key 5 s");
+        List<String> lines = l;
+        ConfigException e = assertThrows(ConfigException.class, () -> FirmwareConfig.parse("x.tuning", lines, emptyInterlocks()));
+        ConfigProblems all = assertInstanceOf(ConfigProblems.class, e);
+        assertEquals(3, all.problems().size(), e.getMessage());
+        assertEquals("single_element.gain", all.problems().get(0).key());
+        assertEquals("single_element.integral_time", all.problems().get(1).key());
+        assertEquals(lines.size(), all.problems().get(2).line());
+        assertEquals(3, e.getMessage().split("\\R").length, "one file:line: line per problem");
     }
 
     @Test
