@@ -9,6 +9,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 import org.drumloop.core.exec.FailSafe;
 import org.drumloop.core.io.EngUnit;
 
@@ -68,6 +69,7 @@ public final class InterlockFile {
 
     /** Parse and validate the lines of a file named {@code fileName} (for messages). */
     public static InterlockConfig parse(String fileName, List<String> lines) throws ConfigException {
+        List<ConfigException> problems = new ArrayList<>();
         List<Block> blocks = new ArrayList<>();
         Block watchdog = null;
         Block current = null;
@@ -79,57 +81,82 @@ public final class InterlockFile {
             String[] kv = text.split("\\s+", 2);
             String key = kv[0];
             String value = kv.length > 1 ? kv[1].strip() : "";
-            if (key.equals("interlock")) {
-                if (value.isEmpty() || value.contains(" ")) {
-                    throw new ConfigException(fileName, ln, key, "expected one tag after 'interlock', e.g. 'interlock LALL'");
-                }
-                for (Block b : blocks) {
-                    if (b.name.equalsIgnoreCase(value)) {
-                        throw new ConfigException(fileName, ln, key, "duplicate tag " + value
-                                + " (first defined on line " + b.line + ")");
+            try {
+                if (key.equals("interlock")) {
+                    if (value.isEmpty() || value.contains(" ")) {
+                        throw new ConfigException(fileName, ln, key, "expected one tag after 'interlock', e.g. 'interlock LALL'");
                     }
+                    for (Block b : blocks) {
+                        if (b.name.equalsIgnoreCase(value)) {
+                            throw new ConfigException(fileName, ln, key, "duplicate tag " + value
+                                    + " (first defined on line " + b.line + ")");
+                        }
+                    }
+                    current = new Block(value, ln, false);
+                    blocks.add(current);
+                    continue;
                 }
-                current = new Block(value, ln, false);
-                blocks.add(current);
-                continue;
-            }
-            if (key.equals("watchdog")) {
-                if (watchdog != null) {
-                    throw new ConfigException(fileName, ln, key, "second watchdog block (first on line " + watchdog.line + ")");
+                if (key.equals("watchdog")) {
+                    if (watchdog != null) {
+                        throw new ConfigException(fileName, ln, key, "second watchdog block (first on line " + watchdog.line + ")");
+                    }
+                    if (!value.isEmpty()) {
+                        throw new ConfigException(fileName, ln, key, "nothing may follow 'watchdog' on its line");
+                    }
+                    watchdog = new Block("watchdog", ln, true);
+                    current = watchdog;
+                    continue;
                 }
-                if (!value.isEmpty()) {
-                    throw new ConfigException(fileName, ln, key, "nothing may follow 'watchdog' on its line");
+                if (current == null) {
+                    throw new ConfigException(fileName, ln, key, "expected 'interlock TAG' or 'watchdog' before settings");
                 }
-                watchdog = new Block("watchdog", ln, true);
-                current = watchdog;
-                continue;
+                String[] allowed = current.watchdog ? WATCHDOG_KEYS : KEYS;
+                if (!contains(allowed, key)) {
+                    throw new ConfigException(fileName, ln, key, "unknown key in " + (current.watchdog ? "watchdog" : "interlock")
+                            + " block; expected one of " + String.join(", ", allowed));
+                }
+                if (current.values.containsKey(key)) {
+                    throw new ConfigException(fileName, ln, key, "given twice in this block (first on line "
+                            + current.lines.get(key) + ")");
+                }
+                if (value.isEmpty()) {
+                    throw new ConfigException(fileName, ln, key, "missing value");
+                }
+                current.values.put(key, value);
+                current.lines.put(key, ln);
+            } catch (ConfigException e) {
+                problems.add(e); // go on: the user sees every problem of the file at once
+                if (key.equals("interlock") || key.equals("watchdog") || current == null) {
+                    // the settings under a refused (or missing) block line belong to no block:
+                    // absorb them quietly instead of reporting each one again
+                    current = new Block(value, ln, key.equals("watchdog"));
+                }
             }
-            if (current == null) {
-                throw new ConfigException(fileName, ln, key, "expected 'interlock TAG' or 'watchdog' before settings");
-            }
-            String[] allowed = current.watchdog ? WATCHDOG_KEYS : KEYS;
-            if (!contains(allowed, key)) {
-                throw new ConfigException(fileName, ln, key, "unknown key in " + (current.watchdog ? "watchdog" : "interlock")
-                        + " block; expected one of " + String.join(", ", allowed));
-            }
-            if (current.values.containsKey(key)) {
-                throw new ConfigException(fileName, ln, key, "given twice in this block (first on line "
-                        + current.lines.get(key) + ")");
-            }
-            if (value.isEmpty()) {
-                throw new ConfigException(fileName, ln, key, "missing value");
-            }
-            current.values.put(key, value);
-            current.lines.put(key, ln);
         }
         if (blocks.isEmpty()) {
-            throw new ConfigException(fileName, 0, "interlock", "no interlock defined");
+            problems.add(new ConfigException(fileName, 0, "interlock", "no interlock defined"));
         }
         List<InterlockSpec> specs = new ArrayList<>();
         for (Block b : blocks) {
-            specs.add(toSpec(fileName, b));
+            try {
+                specs.add(toSpec(fileName, b));
+            } catch (ConfigException e) {
+                problems.add(e);
+            }
         }
-        FailSafe fs = watchdog == null ? FailSafe.defaults() : toFailSafe(fileName, watchdog);
+        FailSafe fs = FailSafe.defaults();
+        if (watchdog != null) {
+            try {
+                fs = toFailSafe(fileName, watchdog);
+            } catch (ConfigException e) {
+                problems.add(e);
+            }
+        }
+        if (!problems.isEmpty()) {
+            // in file order; problems of the whole file (line 0) last
+            problems.sort(java.util.Comparator.comparingInt(e -> e.line() == 0 ? Integer.MAX_VALUE : e.line()));
+            throw problems.size() == 1 ? problems.get(0) : new ConfigProblems(problems);
+        }
         return new InterlockConfig(fileName, specs, fs);
     }
 

@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.core.config.ConfigProblems;
 import org.drumloop.core.exec.FailSafe;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -156,7 +157,26 @@ class InterlockFileTest {
     void mistakesAreReportedWithFileLineAndKey(int index, String replacement, String expectedStart) {
         ConfigException e = assertThrows(ConfigException.class,
                 () -> InterlockFile.parse("t.interlocks", with(index, replacement.strip())));
-        assertTrue(e.getMessage().startsWith(expectedStart), e.getMessage());
+        // every problem of the file is reported at once; the one this row causes must be among them
+        List<ConfigException> all = e instanceof ConfigProblems ? ((ConfigProblems) e).problems() : List.of(e);
+        assertTrue(all.stream().anyMatch(p -> p.getMessage().startsWith(expectedStart)), e.getMessage());
+    }
+
+    @Test
+    void everyProblemIsReportedOnceInFileOrder() {
+        // each block reports its first problem; line-level problems are all reported
+        List<String> l = new ArrayList<>(Arrays.asList(GOOD_LALL));
+        l.set(1, "kind shutdown");                      // line 2, block LALL
+        List<String> second = new ArrayList<>(Arrays.asList(GOOD_LALL));
+        second.set(0, "interlock LAHH");                // line 11
+        second.set(4, "direction down");                // line 15, block LAHH
+        second.add("colour red");                       // line 21, a line of its own
+        l.addAll(second);
+        ConfigProblems e = assertThrows(ConfigProblems.class, () -> InterlockFile.parse("t.interlocks", l));
+        assertEquals(3, e.problems().size(), e.getMessage());
+        assertEquals(2, e.problems().get(0).line());
+        assertEquals(15, e.problems().get(1).line());
+        assertEquals(21, e.problems().get(2).line());
     }
 
     @Test
