@@ -54,7 +54,7 @@ function connect() {
     const v = m.values;
     const last = S.history[S.history.length - 1];
     if (!last || v.t_s > last[0]) {
-      S.history.push([v.t_s, v.level_mm, v.level_true_mm, v.steam_th, v.feed_th, v.valve_pct, v.pressure_barg, v.setpoint_mm]);
+      S.history.push([v.t_s, v.level_mm, v.level_true_mm, steamOf(v), feedOf(v), v.valve_pct, v.pressure_barg, v.setpoint_mm]);
       while (S.history.length && S.history[0][0] < v.t_s - HISTORY_KEEP_S) S.history.shift();
     }
     for (const e of m.events) addEvent(e);
@@ -96,6 +96,11 @@ function setupInfo(info) {
   } else {
     banner.hidden = true;
   }
+  // on hardware there is no plant to act on and the firmware scans in real time
+  const hw = !!info.hardware;
+  document.querySelectorAll('.instructor input, .instructor select, .instructor button, #speed-select, #pause')
+    .forEach((e) => { e.disabled = hw; });
+  $('instructor-hw').hidden = !hw;
   const sp = $('sp-input');
   sp.min = info.setpoint_min_mm; sp.max = info.setpoint_max_mm;
   $('demand-input').max = info.steam_demand_max_pct;
@@ -214,6 +219,10 @@ function renderAlarms(v) {
 
 // ---- values --------------------------------------------------------------------------------------
 
+// flows shown: the plant's on a simulator, the firmware's measurements on hardware (no plant there)
+function steamOf(v) { return S.info && S.info.hardware ? v.steam_meas_th : v.steam_th; }
+function feedOf(v) { return S.info && S.info.hardware ? v.feed_meas_th : v.feed_th; }
+
 function render(v) {
   S.values = v;
   setText('sim-time', fmt(v.t_s, 1));
@@ -232,9 +241,9 @@ function render(v) {
   $('pause').classList.toggle('on', v.paused);
   setText('dv-level', fmt(v.level_mm, 0) + ' mm');
   setText('dv-pressure', fmt(v.pressure_barg, 2) + ' barg');
-  setText('dv-steam', fmt(v.steam_th, 2) + ' t/h');
+  setText('dv-steam', fmt(steamOf(v), 2) + ' t/h');
   setText('dv-demand', 'demand ' + fmt(v.demand_pct, 0) + ' %');
-  setText('dv-feed', fmt(v.feed_th, 2) + ' t/h');
+  setText('dv-feed', fmt(feedOf(v), 2) + ' t/h');
   setText('dv-valve', fmt(v.valve_pct, 1) + ' %');
   setText('dv-valve-dem', 'demand ' + fmt(v.output_pct, 1) + ' %');
   setText('dv-feedtemp', fmt(v.feed_temp_c, 0) + ' degC');

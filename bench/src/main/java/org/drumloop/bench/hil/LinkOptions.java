@@ -5,7 +5,10 @@ import org.drumloop.modbus.TcpEndpoint;
 
 import picocli.CommandLine.Option;
 
-/** Where the Modbus link runs: TCP host:port, or an RTU serial line with its character format. */
+/**
+ * Where the Modbus link runs: TCP host:port, or an RTU serial line with its character format.
+ * Shared by the commands that talk to a rig (drive-rig, live --rig).
+ */
 public final class LinkOptions {
     @Option(names = "--tcp", paramLabel = "HOST:PORT", description = "Modbus TCP address")
     String tcp;
@@ -26,7 +29,7 @@ public final class LinkOptions {
     Integer unit;
 
     /** Check the combination; returns a message or null when fine. */
-    String problem(String defaultTcp) {
+    public String problem(String defaultTcp) {
         if (tcp != null && rtu != null) {
             return "give --tcp or --rtu, not both";
         }
@@ -48,9 +51,12 @@ public final class LinkOptions {
         return null;
     }
 
-    boolean isRtu() { return rtu != null; }
+    public boolean isRtu() { return rtu != null; }
 
-    TcpEndpoint tcp(String defaultTcp) { return TcpEndpoint.parse(tcp != null ? tcp : defaultTcp); }
+    public TcpEndpoint tcp(String defaultTcp) { return TcpEndpoint.parse(tcp != null ? tcp : defaultTcp); }
 
-    SerialSettings serial() { return new SerialSettings(rtu, baud, SerialSettings.parity(parity), stop); }
+    public SerialSettings serial() { return new SerialSettings(rtu, baud, SerialSettings.parity(parity), stop); }
+
+    /** The unit id given with --unit, or null to keep the map's. */
+    public Integer unit() { return unit; }
 }

@@ -161,9 +161,11 @@ final class Broadcaster implements Runnable {
     private static final double TH = 3.6; // kg/s -> t/h
     private static final double ATM_PA = 101_325.0; // standard atmosphere, gauge pressure base (ISO 2533)
 
-    private static double[] trendPoint(LiveSnapshot s) {
-        return new double[] {s.tS, s.levelIndicatedM, s.levelM, s.steamFlowKgS, s.feedFlowKgS,
-            s.valvePositionFrac, s.drumPressurePa, s.levelSetpointM};
+    /** On hardware the flows are the firmware's measurements (there is no plant truth to show). */
+    private double[] trendPoint(LiveSnapshot s) {
+        boolean hw = info.hardware();
+        return new double[] {s.tS, s.levelIndicatedM, s.levelM, hw ? s.steamFlowMeasuredKgS : s.steamFlowKgS,
+            hw ? s.feedFlowMeasuredKgS : s.feedFlowKgS, s.valvePositionFrac, s.drumPressurePa, s.levelSetpointM};
     }
 
     /** [t s, level ind mm, level truth mm, steam t/h, feed t/h, valve %, pressure barg, setpoint mm]. */

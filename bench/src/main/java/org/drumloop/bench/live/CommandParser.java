@@ -30,6 +30,8 @@ import org.drumloop.core.io.EngUnit;
  * {"cmd":"clear","target":"all|level_tx_a|feed_pump_a|feed_valve|steam|drum|burner|..."}
  * </pre>
  * Loop control ({@code pause}, {@code resume}, {@code speed}) is handled by the server, not here.
+ * When the session drives real hardware ({@link LiveInfo#hardware()}) the instructor commands are
+ * refused before anything else is read: there is no plant to act on.
  */
 final class CommandParser {
     /** Steam demand may exceed rating a little for overload tests (common practice: 110 % MCR). */
@@ -42,6 +44,10 @@ final class CommandParser {
     static final Set<String> FAULT_KINDS = Set.of("stuck", "drift", "bias", "fail-low", "fail-high", "noise-burst");
     /** Plant targets a clear may name besides transmitters and trippable equipment. */
     static final List<String> CLEAR_EXTRA = List.of("all", "feed_valve", "steam", "drum");
+
+    /** Instructor commands: they act on a simulated plant, so a session on hardware refuses them. */
+    static final Set<String> PLANT_COMMANDS = Set.of("steam_demand", "steam_ramp", "fault", "trip", "valve_stuck",
+            "steam_surge", "tube_leak", "clear");
 
     private final LiveInfo info;
 
@@ -58,6 +64,9 @@ final class CommandParser {
 
     LiveAction parse(Map<String, Object> m) throws BadCommand {
         String cmd = str(m, "cmd");
+        if (info.hardware() && PLANT_COMMANDS.contains(cmd)) {
+            throw new BadCommand(cmd + ": " + RigLiveSession.REFUSED);
+        }
         switch (cmd) {
             case "mode": {
                 only(m, "cmd", "mode");

@@ -10,12 +10,16 @@ import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import org.drumloop.bench.ConfigResolver;
 import org.drumloop.bench.ExitCode;
+import org.drumloop.bench.hil.LinkOptions;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.scenario.ScenarioParser;
+import org.drumloop.core.FirmwareConfig;
 import org.drumloop.core.config.ConfigException;
+import org.drumloop.modbus.client.RigClient;
 import org.drumloop.modbus.map.ChannelMap;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 
 /**
@@ -26,6 +30,11 @@ import picocli.CommandLine.Option;
         description = {"Run the closed loop in real time and watch and operate it in a web browser: process diagram,"
                 + " trends, controller faceplate, alarms, and an instructor panel to inject faults and load changes."
                 + " Save the session as a scenario file and replay it with 'drumloop run'.",
+            "",
+            "With --rig the firmware runs in real time against a PLC or test rig over Modbus TCP or RTU (laid out by"
+                + " --map) and WRITES valve demand, pump run commands and fuel cut-off to it. The page then shows the"
+                + " firmware's view only, under a banner that cannot be hidden, asks before every command, and refuses"
+                + " plant actions (faults, trips, load changes).",
             "",
             "A simulator and test bench, not a safety system: interlock settings come from the boiler maker,"
                 + " classification rules and local codes."},
@@ -71,13 +80,43 @@ public final class LiveCommand implements Callable<Integer> {
     boolean loopback;
 
     @Option(names = "--map", paramLabel = "NAME|FILE", defaultValue = "aux-4-20ma",
-            description = "channel map for --loopback (default aux-4-20ma)")
+            description = "channel map for --loopback (default aux-4-20ma); required with --rig")
     String map;
+
+    @Option(names = "--rig",
+            description = "drive real hardware: the firmware in real time as Modbus client (master) of the device at --tcp"
+                    + " or --rtu, no plant in this process")
+    boolean rig;
+
+    @Mixin
+    LinkOptions link = new LinkOptions();
+
+    /** Printed first with --rig: the same caution as drive-rig. */
+    static final String RIG_BANNER = String.join(System.lineSeparator(),
+            "*****************************************************************************",
+            "* CAUTION: live --rig WRITES valve demand, pump run commands and fuel        *",
+            "* cut-off to the connected device. Never connect to a live boiler without a  *",
+            "* permit to work and licensed supervision. A test bench, not a safety        *",
+            "* system: interlock settings come from the boiler maker, classification      *",
+            "* rules and local codes.                                                     *",
+            "*****************************************************************************");
 
     @Override
     public Integer call() throws Exception {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
+        if (rig) {
+            out.println(RIG_BANNER);
+            out.flush();
+            String bad = rigProblem();
+            if (bad != null) {
+                err.println(bad);
+                return ExitCode.BAD_INPUT;
+            }
+        } else if (given("--tcp", "--rtu", "--baud", "--parity", "--stop", "--unit")) {
+            err.println("--tcp, --rtu, --baud, --parity, --stop and --unit are for --rig");
+            return ExitCode.BAD_INPUT;
+        }
         if (!(speed >= LiveServer.SPEED_MIN && speed <= LiveServer.SPEED_MAX)) {
             err.println("--speed: expected " + LiveAction.fmt(LiveServer.SPEED_MIN) + " to "
                     + LiveAction.fmt(LiveServer.SPEED_MAX) + ", got " + LiveAction.fmt(speed));
@@ -100,7 +139,10 @@ public final class LiveCommand implements Callable<Integer> {
         }
         LiveSession session;
         try {
-            session = build();
+            session = build(err);
+            if (session == null) {
+                return ExitCode.BAD_INPUT;
+            }
         } catch (ConfigException e) {
             err.println(e.getMessage());
             return ExitCode.BAD_INPUT;
@@ -113,6 +155,9 @@ public final class LiveCommand implements Callable<Integer> {
         try {
             server = new LiveServer(loop, address, port, LiveServer.DEFAULT_BROADCAST_MS);
         } catch (BindException e) {
+            if (session instanceof AutoCloseable) {
+                ((AutoCloseable) session).close();
+            }
             err.println("cannot listen on " + bind + ":" + port + ": " + e.getMessage() + "; choose another with --port");
             return ExitCode.IO_ERROR;
         }
@@ -139,6 +184,10 @@ public final class LiveCommand implements Callable<Integer> {
         LiveInfo info = session.info();
         out.println("drumloop live: " + info.plantName() + " (" + info.description() + "), tuning " + info.tuningName()
                 + ", " + LiveAction.fmt(speed) + "x real time");
+        if (info.hardware()) {
+            out.println("  CONNECTED TO HARDWARE: " + info.ioDescription() + "; fail-safe on a stalled scan: "
+                    + ((RigLiveSession) session).executive().watchdog().failSafe());
+        }
         out.println("  open " + server.uri() + " in a web browser; Ctrl-C stops the bench");
         out.println("  SIMULATOR / TEST BENCH, not a safety system: interlock settings come from the boiler maker,");
         out.println("  classification rules and local codes.");
@@ -150,7 +199,75 @@ public final class LiveCommand implements Callable<Integer> {
         return ExitCode.OK;
     }
 
-    private LiveSession build() throws ConfigException, IOException {
+    /** Options given on the command line (not defaults). */
+    private boolean given(String... names) {
+        CommandLine.ParseResult r = spec.commandLine().getParseResult();
+        for (String n : names) {
+            if (r != null && r.hasMatchedOption(n)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /** What is wrong with the options of a --rig session, or null. */
+    private String rigProblem() {
+        if (loopback) {
+            return "give --rig or --loopback, not both";
+        }
+        for (String o : new String[] {"--scenario", "--plant", "--load", "--seed"}) {
+            if (given(o)) {
+                return o + ": not used with --rig: there is no simulated plant, the rig is the plant";
+            }
+        }
+        if (speed != 1.0) {
+            return "--speed: the firmware drives hardware in real time; --rig runs at 1x only";
+        }
+        if (!given("--map")) {
+            return "--map: give the channel map of the rig (a file, or a name from config/maps/)";
+        }
+        return link.problem(null);
+    }
+
+    /**
+     * The firmware against the rig: map checked for the control signals (every problem printed,
+     * then null), tuning and interlocks loaded.
+     */
+    private LiveSession buildRig(PrintWriter err) throws ConfigException {
+        Path m = ConfigResolver.resolve(map, "maps", ".csv", null);
+        if (m == null) {
+            throw new ConfigException(map, 0, "--map", "no such channel map file or shipped map name");
+        }
+        java.util.List<ConfigException> problems = ChannelMap.validate(m);
+        ChannelMap cm = null;
+        if (problems.isEmpty()) {
+            cm = ChannelMap.load(m);
+            problems = cm.requireSignals(RigLiveSession.REQUIRED_SIGNALS);
+        }
+        if (!problems.isEmpty()) {
+            for (ConfigException e : problems) {
+                err.println(e.getMessage());
+            }
+            return null;
+        }
+        if (link.unit() != null) {
+            cm = cm.withUnitId(link.unit());
+        }
+        Path t = ConfigResolver.resolve(tuning, "tuning", ".tuning", null);
+        if (t == null) {
+            throw new ConfigException(tuning, 0, "--tuning", "no such tuning file or shipped tuning name");
+        }
+        FirmwareConfig fc = FirmwareConfig.load(t);
+        RigClient.Options opts = RigClient.Options.defaults();
+        RigClient client = link.isRtu() ? RigClient.rtu(cm, link.serial(), opts) : RigClient.tcp(cm, link.tcp(null), opts);
+        String where = link.isRtu() ? "Modbus RTU " + link.serial().device() : "Modbus TCP " + link.tcp(null);
+        return new RigLiveSession(client, fc, t, where + ", map " + m.getFileName());
+    }
+
+    private LiveSession build(PrintWriter err) throws ConfigException, IOException {
+        if (rig) {
+            return buildRig(err);
+        }
         Scenario sc;
         if (scenario != null) {
             Path p = ConfigResolver.resolve(scenario, "scenarios", ".scenario", null);

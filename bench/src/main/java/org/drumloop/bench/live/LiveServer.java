@@ -214,6 +214,10 @@ public final class LiveServer implements AutoCloseable {
         }
         Object cmd = m.get("cmd");
         try {
+            if (loop.session().info().hardware() && ("pause".equals(cmd) || "resume".equals(cmd) || "speed".equals(cmd))) {
+                // the firmware keeps scanning the rig in real time: pausing it would freeze its outputs
+                throw new CommandParser.BadCommand(cmd + ": not available on real hardware: the firmware scans in real time");
+            }
             if ("pause".equals(cmd) || "resume".equals(cmd)) {
                 if (m.size() != 1) {
                     throw new CommandParser.BadCommand("\"" + cmd + "\" takes no other members");
