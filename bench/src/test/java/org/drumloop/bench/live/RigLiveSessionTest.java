@@ -28,11 +28,14 @@ import org.drumloop.plant.PlantFile;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 
 /**
  * The live page driving hardware: "the rig" is the bridge's own Modbus TCP slave on 127.0.0.1
  * (port 0) serving a fixed image of the demo plant at 70 % load, and the firmware is its client
- * in real time through a {@link RigLiveSession}. Everything is checked through the page's HTTP API.
+ * in real time through a {@link RigLiveSession}. Everything is checked through the page's HTTP API,
+ * and the banner and the confirmation once in a headless browser (waits are conditions polled by
+ * the page or the API with a deadline, never sleeps used as timing).
  */
 class RigLiveSessionTest {
     /** Scaling of feed_valve_demand in aux-4-20ma.csv: 0..27648 counts = 0..100 %. */
@@ -172,5 +175,33 @@ class RigLiveSessionTest {
         assertTrue(loop.actionLog().stream().anyMatch(l -> l.endsWith(" s output 40 %")), loop.actionLog().toString());
         assertTrue(server.scenarioText().lines().anyMatch(l -> l.startsWith("# at ") && l.endsWith(" s output 40 %")),
                 "the saved session keeps the operator action");
+    }
+
+    @Test
+    void inABrowserTheHardwareBannerStaysAndEveryWriteAsksFirst(@TempDir Path tmp) throws Exception {
+        valuesOnceScanning();
+        try (WebDriverClient web = new WebDriverClient(tmp.resolve("chromium-profile"), 1400, 1300)) {
+            web.navigate(server.uri().toString());
+            web.waitFor("document.getElementById('conn').textContent === 'connected'"
+                    + " && document.getElementById('fp-mode').textContent === 'three-element'");
+            assertEquals(Boolean.FALSE, web.script("return document.getElementById('hw-banner').hidden;", "[]"));
+            assertTrue(web.text("#hw-banner").contains("CONNECTED TO HARDWARE"), web.text("#hw-banner"));
+            assertEquals(0L, ((Double) web.script("return document.querySelectorAll('#hw-banner button').length;", "[]"))
+                    .longValue(), "nothing on the banner closes it");
+            assertTrue(web.text("#caution").contains("TEST BENCH"), "the page says plainly it is a test bench");
+            assertEquals(Boolean.TRUE, web.script("return document.getElementById('fault-apply').disabled"
+                    + " && document.getElementById('demand-apply').disabled && document.getElementById('pause').disabled;", "[]"),
+                    "plant actions and pause are not offered on hardware");
+            assertEquals(Boolean.FALSE, web.script("return document.getElementById('instructor-hw').hidden;", "[]"));
+            web.click("#mode-manual");
+            assertTrue(web.alertText().contains("Hardware is connected"));
+            web.dismissAlert();
+            web.waitFor("document.getElementById('cmd-msg').textContent === 'Not sent.'");
+            assertTrue(loop.actionLog().isEmpty(), "a write the user did not confirm is never sent");
+            web.click("#mode-manual");
+            web.acceptAlert();
+            web.waitFor("document.getElementById('fp-mode').textContent === 'manual'");
+            assertEquals(1, loop.actionLog().size(), loop.actionLog().toString());
+        }
     }
 }
