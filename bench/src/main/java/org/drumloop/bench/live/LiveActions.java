@@ -26,7 +26,7 @@ final class LiveActions {
     }
 
     private final Loop loop;
-    private final List<Object[]> events;
+    private final PendingEvents events;
     private final List<Action> scripted;
     private int nextScripted;
     private final ActionApplier applier;
@@ -37,7 +37,7 @@ final class LiveActions {
      * @param scripted timed statements of a scenario to play (time order), may be empty
      * @param events   where to log {tS, tag, kind, message} entries (loop thread)
      */
-    LiveActions(Loop loop, List<Action> scripted, List<Object[]> events) {
+    LiveActions(Loop loop, List<Action> scripted, PendingEvents events) {
         this.loop = loop;
         this.applier = new ActionApplier(loop);
         this.scripted = scripted;
@@ -62,7 +62,7 @@ final class LiveActions {
         try {
             a = parse(t, action.scenarioStatement());
         } catch (IllegalArgumentException e) {
-            events.add(new Object[] {t, "live", "INFO", "refused: " + e.getMessage()});
+            events.accept(t, "live", "INFO", "refused: " + e.getMessage());
             return;
         }
         run(a, t);
@@ -84,9 +84,9 @@ final class LiveActions {
 
     private void run(Action a, double t) {
         applied.add(a.text());
-        events.add(new Object[] {t, "scenario", "ACTION", a.text()});
+        events.accept(t, "scenario", "ACTION", a.text());
         if (!applier.apply(a, null)) {
-            events.add(new Object[] {t, "live", "INFO", "not available on the live page: " + a.text()});
+            events.accept(t, "live", "INFO", "not available on the live page: " + a.text());
         }
     }
 }

@@ -50,7 +50,7 @@ public final class LoopbackLiveSession implements LiveSession, AutoCloseable {
     private final ProcessImage out = new ProcessImage();
     private final double dtS;
     private final LiveInfo info;
-    private final List<Object[]> pending = new ArrayList<>();
+    private final PendingEvents pending = new PendingEvents();
     private final LiveActions actions;
     private final SoeSink soe;
     private final LiveSnapshot frame;
@@ -90,8 +90,8 @@ public final class LoopbackLiveSession implements LiveSession, AutoCloseable {
         pout.setBool(Signal.FUEL_CUTOFF, false, Quality.GOOD, 0.0);
         plantIo.readInputs(pin, 0.0);
         server.publishInputs(pin, 0.0);
-        this.soe = (tS, scan, tag, kind, message) -> pending.add(new Object[] {tS, tag, kind.name(), message});
-        plant.setEventListener((tS, tag, message) -> pending.add(new Object[] {tS, tag, "PLANT", message}));
+        this.soe = (tS, scan, tag, kind, message) -> pending.accept(tS, tag, kind.name(), message);
+        plant.setEventListener((tS, tag, message) -> pending.accept(tS, tag, "PLANT", message));
         this.actions = new LiveActions(new LiveActions.Loop() {
             @Override public Plant plant() { return plant; }
             @Override public Firmware firmware() { return firmware; }
@@ -199,14 +199,7 @@ public final class LoopbackLiveSession implements LiveSession, AutoCloseable {
 
     @Override
     public void drainEvents(Sink sink) {
-        if (pending.isEmpty()) {
-            return; // the usual scan: nothing to hand over, nothing allocated
-        }
-        for (int i = 0; i < pending.size(); i++) {
-            Object[] e = pending.get(i);
-            sink.accept((Double) e[0], (String) e[1], (String) e[2], (String) e[3]);
-        }
-        pending.clear();
+        pending.drainTo(sink);
     }
 
     @Override

@@ -56,7 +56,7 @@ public final class RigLiveSession implements LiveSession, AutoCloseable {
     private final String tuningRef;
     private final String link;
     private final LiveInfo info;
-    private final List<Object[]> pending = new ArrayList<>();
+    private final PendingEvents pending = new PendingEvents();
     private final List<String> applied = new ArrayList<>();
     private final SoeSink soe;
     private boolean closed;
@@ -79,7 +79,7 @@ public final class RigLiveSession implements LiveSession, AutoCloseable {
         double dtS = fc.scanPeriodS();
         this.executive = new ScanExecutive(new RealTimeClock(), client, firmware, dtS, fc.interlocks().failSafe(),
                 firmware.events());
-        this.soe = (tS, scan, tag, kind, message) -> pending.add(new Object[] {tS, tag, kind.name(), message});
+        this.soe = (tS, scan, tag, kind, message) -> pending.accept(tS, tag, kind.name(), message);
         List<LiveInfo.Line> lines = new ArrayList<>();
         for (RunSummary.LevelLimit l : ScenarioRunner.limits(interlocks)) {
             lines.add(new LiveInfo.Line(l.tag(), l.levelM(), l.trip()));
@@ -176,15 +176,15 @@ public final class RigLiveSession implements LiveSession, AutoCloseable {
                 break;
             case BYPASS: queued = op.bypass(a.target(), a.text(), a.durationS()); break;
             default:
-                pending.add(new Object[] {tS, "live", "INFO", "refused: " + statement + ": " + REFUSED});
+                pending.accept(tS, "live", "INFO", "refused: " + statement + ": " + REFUSED);
                 return;
         }
         if (!queued) {
-            pending.add(new Object[] {tS, "live", "INFO", "refused by the firmware's operator queue: " + statement});
+            pending.accept(tS, "live", "INFO", "refused by the firmware's operator queue: " + statement);
             return;
         }
         applied.add("at " + LiveAction.fmt(tS) + " s " + statement);
-        pending.add(new Object[] {tS, "operator", "ACTION", statement});
+        pending.accept(tS, "operator", "ACTION", statement);
     }
 
     @Override
@@ -242,14 +242,7 @@ public final class RigLiveSession implements LiveSession, AutoCloseable {
 
     @Override
     public void drainEvents(Sink sink) {
-        if (pending.isEmpty()) {
-            return; // the usual scan: nothing to hand over, nothing allocated
-        }
-        for (int i = 0; i < pending.size(); i++) {
-            Object[] e = pending.get(i);
-            sink.accept((Double) e[0], (String) e[1], (String) e[2], (String) e[3]);
-        }
-        pending.clear();
+        pending.drainTo(sink);
     }
 
     /**

@@ -47,7 +47,7 @@ public final class SimLiveSession implements LiveSession {
     private final SimulationSession sim;
     private final InterlockSet interlocks;
     private final LiveInfo info;
-    private final List<Object[]> pending = new ArrayList<>();
+    private final PendingEvents pending = new PendingEvents();
     private final LiveActions actions;
 
     /** Set up plant, tuning, seed and initial load as {@code drumloop run} does for {@code sc}. */
@@ -67,7 +67,7 @@ public final class SimLiveSession implements LiveSession {
             @Override public void setPressureSetpointPa(double pPa) { sim.setPressureSetpointPa(pPa); }
             @Override public double pressureSetpointPa() { return sim.pressureSetpointPa(); }
         }, sc.actions(), pending);
-        sim.setEventSink((tS, tag, kind, message) -> pending.add(new Object[] {tS, tag, kind, message}));
+        sim.setEventSink((tS, tag, kind, message) -> pending.accept(tS, tag, kind, message));
         PlantConfig pc = setup.plant();
         List<LiveInfo.Line> lines = new ArrayList<>();
         for (RunSummary.LevelLimit l : ScenarioRunner.limits(interlocks)) {
@@ -177,14 +177,7 @@ public final class SimLiveSession implements LiveSession {
 
     @Override
     public void drainEvents(Sink sink) {
-        if (pending.isEmpty()) {
-            return; // the usual scan: nothing to hand over, nothing allocated
-        }
-        for (int i = 0; i < pending.size(); i++) {
-            Object[] e = pending.get(i);
-            sink.accept((Double) e[0], (String) e[1], (String) e[2], (String) e[3]);
-        }
-        pending.clear();
+        pending.drainTo(sink);
     }
 
     /** Plant and tuning as a saved scenario names them. */

@@ -36,7 +36,7 @@ final class FakeLiveSession implements LiveSession {
     private final boolean[] acked = {true, true, true, true};
     private final double[] bypassUntilS = {Double.NaN, Double.NaN, Double.NaN, Double.NaN};
     private int firstOut = -1;
-    private final List<Object[]> pendingEvents = new ArrayList<>();
+    private final PendingEvents pendingEvents = new PendingEvents();
     /** The loop's own record: one row per scan {tS, levelM, steamKgS, feedKgS, valveFrac, outFrac}. */
     final List<double[]> record = new ArrayList<>();
     private final List<String> lines = new ArrayList<>();
@@ -126,7 +126,7 @@ final class FakeLiveSession implements LiveSession {
     }
 
     private void event(String tag, String kind, String msg) {
-        pendingEvents.add(new Object[] {tS, tag, kind, msg});
+        pendingEvents.accept(tS, tag, kind, msg);
     }
 
     @Override
@@ -212,10 +212,7 @@ final class FakeLiveSession implements LiveSession {
 
     @Override
     public void drainEvents(Sink sink) {
-        for (Object[] e : pendingEvents) {
-            sink.accept((Double) e[0], (String) e[1], (String) e[2], (String) e[3]);
-        }
-        pendingEvents.clear();
+        pendingEvents.drainTo(sink);
     }
 
     @Override
