@@ -102,8 +102,6 @@ public final class Firmware implements ScanBody {
     private Mode lastMode;
     private boolean lastForcedSingle;
     private boolean lastForcedManual;
-    /** True when an operator manual output was applied in the current scan. */
-    private boolean manualOutputThisScan;
     private boolean lastLowLoad;
     private long scanCount;
     private double valveFrac;
@@ -223,9 +221,9 @@ public final class Firmware implements ScanBody {
         boolean steamOk = steamQ != Quality.BAD;
         boolean flowsOk = steamOk && feedQ != Quality.BAD;
         Mode mode = selector.select(auto, strategy, levelOk, flowsOk, steamKgS / cfg.ratedSteamFlowKgS(), dtS);
-        if (mode == Mode.MANUAL && lastMode != null && lastMode != Mode.MANUAL && !manualOutputThisScan) {
-            // auto -> manual: the operator takes over where control left off, unless the operator
-            // gave a manual output in this same scan (that value wins)
+        if (mode == Mode.MANUAL && lastMode != null && lastMode != Mode.MANUAL && auto) {
+            // forced to manual while in auto (no usable level): hold where control left off. An
+            // operator's switch to manual took over in setAuto, before any output given with it.
             manualValveFrac = valveFrac;
         }
         reportMode(mode, tS, k);
@@ -311,7 +309,6 @@ public final class Firmware implements ScanBody {
     }
 
     private void applyOperator(double tS, long k) {
-        manualOutputThisScan = false;
         int n = operator.drain(opKind, opNum, opMode, opTag, opReason, opParams);
         for (int i = 0; i < n; i++) {
             switch (opKind[i]) {
@@ -330,7 +327,6 @@ public final class Firmware implements ScanBody {
                     break;
                 case OperatorCommands.MANUAL_OUTPUT:
                     manualValveFrac = opNum[i];
-                    manualOutputThisScan = true;
                     log.record(tS, k, TAG_CONTROL, EventKind.OPERATOR, "manual valve position set");
                     break;
                 case OperatorCommands.SETPOINT: {
