@@ -42,6 +42,16 @@ public final class FirmwareConfig {
         this.interlocks = interlocks;
     }
 
+    /**
+     * The same configuration with the swell compensation gain at zero: plain three-element control,
+     * for runs that compare the loop with and without the compensation.
+     */
+    public FirmwareConfig withoutSwellCompensation() {
+        Map<TuningKey, Double> n = new EnumMap<>(num);
+        n.put(TuningKey.SWELL_GAIN, 0.0);
+        return new FirmwareConfig(fileName, n, word, interlocks);
+    }
+
     /** Read a tuning file and the interlocks file it names (relative to the tuning file's folder). */
     public static FirmwareConfig load(Path tuningFile) throws ConfigException {
         List<String> lines = read(tuningFile);

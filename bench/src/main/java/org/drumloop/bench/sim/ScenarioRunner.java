@@ -3,8 +3,6 @@ package org.drumloop.bench.sim;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -92,35 +90,9 @@ public final class ScenarioRunner {
         }
         FirmwareConfig fc = FirmwareConfig.load(tuningPath);
         if (!sc.swellComp()) {
-            fc = withoutSwellCompensation(tuningPath, fc);
+            fc = fc.withoutSwellCompensation();
         }
         return new Setup(plantPath, loadPlant(plantPath), tuningPath, fc);
-    }
-
-    /**
-     * The same tuning with the swell compensation gain ({@code [swell] gain}) set to zero, for
-     * scenarios that compare the loop with and without it ({@code swell_comp off}).
-     */
-    static FirmwareConfig withoutSwellCompensation(Path tuningPath, FirmwareConfig fc) throws ConfigException,
-            IOException {
-        List<String> lines = new ArrayList<>(Files.readAllLines(tuningPath, StandardCharsets.UTF_8));
-        boolean inSwell = false;
-        boolean done = false;
-        for (int i = 0; i < lines.size(); i++) {
-            String t = lines.get(i).trim();
-            if (t.startsWith("[")) {
-                inSwell = t.startsWith("[swell]");
-            } else if (inSwell && t.matches("gain\\s.*")) {
-                String unit = t.replaceAll("#.*", "").trim().split("\\s+")[2];
-                lines.set(i, "gain 0 " + unit + "   # swell_comp off (scenario)");
-                done = true;
-            }
-        }
-        if (!done) {
-            throw new ConfigException(tuningPath.toString(), 0, "swell.gain",
-                    "no [swell] gain line to switch swell compensation off");
-        }
-        return FirmwareConfig.parse(tuningPath.toString(), lines, fc.interlocks());
     }
 
     /** Load a plant file, with its errors in the bench's error type. */
