@@ -4,7 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import org.junit.jupiter.api.Test;
 
-/** Mode selection: load hysteresis between single- and three-element, forced modes on bad signals. */
+/**
+ * Mode selection: load hysteresis between single- and three-element, forced modes on bad signals.
+ * Single-element at low load and start-up, three-element above a load threshold, and single-element
+ * forced when a flow signal is lost follow ANSI/ISA-77.42.01 drum feedwater practice (from memory,
+ * content not checked against the text); the thresholds are this project's tuning-file values.
+ */
 class ModeSelectorTest {
     static final double H_S = 0.1;
 
