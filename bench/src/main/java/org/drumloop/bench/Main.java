@@ -10,6 +10,8 @@ import org.drumloop.bench.cli.DemoCommand;
 import org.drumloop.bench.cli.InterlocksCommand;
 import org.drumloop.bench.cli.PerfCommand;
 import org.drumloop.bench.cli.RunCommand;
+import org.drumloop.bench.record.BuildInfo;
+import org.drumloop.bench.record.Invocation;
 import org.slf4j.LoggerFactory;
 
 import ch.qos.logback.classic.Level;
@@ -74,6 +76,7 @@ public final class Main implements Runnable {
         CommandLine cl = commandLine();
         cl.setOut(out);
         cl.setErr(err);
+        Invocation.set(args);
         int code = cl.execute(args);
         out.flush();
         err.flush();
@@ -104,12 +107,11 @@ public final class Main implements Runnable {
         return new ArrayList<>(commandLine().getSubcommands().keySet());
     }
 
-    /** Version from the jar manifest when packaged. */
+    /** The build as every record names it: project version and git commit. */
     static final class Version implements CommandLine.IVersionProvider {
         @Override
         public String[] getVersion() {
-            String v = Main.class.getPackage().getImplementationVersion();
-            return new String[] {"drumloop " + (v == null ? "(development build)" : v)};
+            return new String[] {"drumloop " + BuildInfo.current().describe()};
         }
     }
 }
