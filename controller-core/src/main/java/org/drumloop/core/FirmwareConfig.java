@@ -32,13 +32,16 @@ public final class FirmwareConfig {
     private final String fileName;
     private final Map<TuningKey, Double> num;
     private final Map<TuningKey, String> word;
+    /** Unit of each number as the file spells it (for showing the values back in the user's units). */
+    private final Map<TuningKey, String> unitText;
     private final InterlockConfig interlocks;
 
     private FirmwareConfig(String fileName, Map<TuningKey, Double> num, Map<TuningKey, String> word,
-                           InterlockConfig interlocks) {
+                           Map<TuningKey, String> unitText, InterlockConfig interlocks) {
         this.fileName = fileName;
         this.num = num;
         this.word = word;
+        this.unitText = unitText;
         this.interlocks = interlocks;
     }
 
@@ -49,7 +52,7 @@ public final class FirmwareConfig {
     public FirmwareConfig withoutSwellCompensation() {
         Map<TuningKey, Double> n = new EnumMap<>(num);
         n.put(TuningKey.SWELL_GAIN, 0.0);
-        return new FirmwareConfig(fileName, n, word, interlocks);
+        return new FirmwareConfig(fileName, n, word, unitText, interlocks);
     }
 
     /** Read a tuning file and the interlocks file it names (relative to the tuning file's folder). */
@@ -64,13 +67,13 @@ public final class FirmwareConfig {
         }
         Path shown = tuningFile.getParent() == null ? il.getFileName() : tuningFile.getParent().resolve(p.word.get(TuningKey.INTERLOCKS));
         InterlockConfig ic = InterlockFile.parse(shown.toString(), read(il));
-        return new FirmwareConfig(tuningFile.toString(), p.num, p.word, ic);
+        return new FirmwareConfig(tuningFile.toString(), p.num, p.word, p.unitText, ic);
     }
 
     /** Parse tuning lines; the interlock configuration is supplied (the file's {@code interlocks} key is still checked for presence). */
     public static FirmwareConfig parse(String fileName, List<String> lines, InterlockConfig interlocks) throws ConfigException {
         Parsed p = parseLines(fileName, lines);
-        return new FirmwareConfig(fileName, p.num, p.word, interlocks);
+        return new FirmwareConfig(fileName, p.num, p.word, p.unitText, interlocks);
     }
 
     private static List<String> read(Path p) throws ConfigException {
@@ -85,6 +88,7 @@ public final class FirmwareConfig {
         final Map<TuningKey, Double> num = new EnumMap<>(TuningKey.class);
         final Map<TuningKey, String> word = new EnumMap<>(TuningKey.class);
         final Map<TuningKey, Integer> lineOf = new EnumMap<>(TuningKey.class);
+        final Map<TuningKey, String> unitText = new EnumMap<>(TuningKey.class);
     }
 
     private static Parsed parseLines(String file, List<String> lines) throws ConfigException {
@@ -202,6 +206,7 @@ public final class FirmwareConfig {
                     + " is outside " + fmt(k.minSi) + " to " + fmt(k.maxSi) + " " + k.dim);
         }
         p.num.put(k, si);
+        p.unitText.put(k, f[2]);
     }
 
     private static void order(String file, Parsed p, TuningKey low, TuningKey high, String msg) throws ConfigException {
@@ -378,4 +383,44 @@ public final class FirmwareConfig {
 
     /** Name of the interlocks file as written in the tuning file. */
     public String interlocksFileName() { return word.get(TuningKey.INTERLOCKS); }
+
+    /**
+     * One setting in use, for records: its section and key as in the file, the value in the unit
+     * the file wrote it in (a word for word keys), and that unit ("" for a word).
+     */
+    public record Setting(String section, String key, String value, String unit) {
+    }
+
+    /**
+     * Every setting in use, section by section in the order of the format, each number shown in
+     * the unit the file used (a value changed by the bench, such as swell compensation switched off
+     * for a run, is shown as in use).
+     */
+    public List<Setting> settings() {
+        List<Setting> out = new ArrayList<>();
+        for (TuningKey k : TuningKey.values()) {
+            if (k.dim == null) {
+                out.add(new Setting(k.section, k.name, word.get(k), ""));
+                continue;
+            }
+            double si = num.get(k);
+            String unit = unitText.get(k);
+            TuningUnits.Unit u = unit == null ? null : TuningUnits.parse(unit);
+            if (Double.isInfinite(si) || u == null) {
+                out.add(new Setting(k.section, k.name, Double.isInfinite(si) ? "off" : shown(si), unit == null ? "" : unit));
+            } else {
+                out.add(new Setting(k.section, k.name, shown((si - u.offset()) / u.factor()), unit));
+            }
+        }
+        return out;
+    }
+
+    /** Up to six significant digits, no trailing zeros, no exponent for ordinary settings. */
+    private static String shown(double v) {
+        if (Math.abs(v) < 1e-9) {
+            return "0";
+        }
+        String s = new java.math.BigDecimal(v).round(new java.math.MathContext(6)).stripTrailingZeros().toPlainString();
+        return s.length() > 14 ? String.format(Locale.ROOT, "%.6g", v) : s;
+    }
 }
