@@ -8,6 +8,7 @@ import java.util.concurrent.Callable;
 
 import org.drumloop.bench.ExitCode;
 import org.drumloop.bench.record.HtmlReport;
+import org.drumloop.bench.record.PdfPrinter;
 import org.drumloop.bench.record.RunSummary;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.sim.ScenarioRunner;
@@ -35,6 +36,9 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", description = "folder for the records (default out/demo)")
     Path out = Paths.get("out", "demo");
 
+    @CommandLine.Mixin
+    PdfOptions pdf = new PdfOptions();
+
     @Override
     public Integer call() {
         PrintWriter o = spec.commandLine().getOut();
@@ -43,11 +47,16 @@ public final class DemoCommand implements Callable<Integer> {
         try {
             Scenario sc = Runs.load(DEMO);
             Runs.checkWritable(out);
+            PdfPrinter printer = pdf.printer();
             r = ScenarioRunner.run(sc, new ScenarioRunner.Options(out, Double.POSITIVE_INFINITY, 1,
                     Runs.progress()));
+            pdf.print(printer, out, "report");
         } catch (ConfigException e) {
             err.println(e.getMessage());
             return ExitCode.BAD_INPUT;
+        } catch (PdfPrinter.UnavailableException e) {
+            err.println(e.getMessage());
+            return ExitCode.IO_ERROR;
         } catch (IOException e) {
             err.println("cannot write records: " + e.getMessage());
             return ExitCode.IO_ERROR;
@@ -59,10 +68,13 @@ public final class DemoCommand implements Callable<Integer> {
         o.printf("  %-4s %4s  %-60s %s%n", "", "line", "expectation", "measured");
         Runs.printOutcomes(o, r);
         o.println();
-        o.printf("largest level deviation %.1f mm, IAE %.0f mm*s, valve travel %.0f %%%n",
-                r.figures().maxDeviationM() * 1000, r.figures().iaeMS() * 1000, r.figures().valveTravelFrac() * 100);
+        o.printf("largest level deviation %.1f mm (true level; indicated level %.1f mm), IAE %.0f mm*s,"
+                + " valve travel %.0f %%%n", r.figures().maxDeviationM() * 1000,
+                r.figures().maxIndicatedDeviationM() * 1000, r.figures().iaeMS() * 1000,
+                r.figures().valveTravelFrac() * 100);
         o.println(r.passed() ? "PASS" : "FAIL: " + r.failures() + " expectation(s) did not hold");
-        o.println("records: " + out.resolve("report.html") + "  (also trend.csv, events.csv)");
+        o.println("records: " + out.resolve("report.html") + "  (also trend.csv, events.csv"
+                + (pdf.pdf ? ", report.pdf" : "") + ")");
         o.println();
         o.println(HtmlReport.CAUTION);
         return r.passed() ? ExitCode.OK : ExitCode.FAILED;

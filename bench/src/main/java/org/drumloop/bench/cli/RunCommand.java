@@ -11,6 +11,8 @@ import java.util.concurrent.Callable;
 import org.drumloop.bench.ExitCode;
 import org.drumloop.bench.record.AtomicOutput;
 import org.drumloop.bench.record.JunitXml;
+import org.drumloop.bench.record.PdfPrinter;
+import org.drumloop.bench.record.RecordHeader;
 import org.drumloop.bench.record.RunSummary;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.sim.ScenarioRunner;
@@ -24,10 +26,13 @@ import picocli.CommandLine.Parameters;
 /** {@code drumloop run SCENARIO...}: run scenarios and judge their expectations. */
 @Command(name = "run", mixinStandardHelpOptions = true,
         description = {"Run scenarios against the simulated plant and judge their expectations.",
-            "Records per scenario: trend.csv, events.csv, report.html (in --out, default out/<scenario>/).",
-            "Every file is checked before anything runs; nothing written earlier is lost on an error."},
+            "Records per scenario: trend.csv, events.csv, report.html (in --out, default out/<scenario>/);"
+                + " with several scenarios also index.html, the campaign's cover sheet, in the folder above them.",
+            "Every file and output folder is checked before anything runs; nothing written earlier is lost on an"
+                + " error. A scenario without expect lines gives NO CRITERIA (exit 0 with a warning)."},
         exitCodeListHeading = "%nExit codes:%n", exitCodeList = {
-            "0:every expectation held", "1:an expectation failed",
+            "0:every expectation held (or a scenario had none: NO CRITERIA)",
+            "1:an expectation failed, or --require-criteria and a scenario had none",
             "2:bad input (file:line: word: message)", "3:records could not be written", "4:internal error"})
 public final class RunCommand implements Callable<Integer> {
     @CommandLine.Spec
@@ -50,6 +55,12 @@ public final class RunCommand implements Callable<Integer> {
     @Option(names = "--record-every", paramLabel = "N", defaultValue = "1",
             description = "write one trend row every N scans (default 1: every scan)")
     int recordEvery;
+
+    @Option(names = "--require-criteria", description = "fail (exit 1) a scenario that has no expect lines")
+    boolean requireCriteria;
+
+    @CommandLine.Mixin
+    PdfOptions pdf = new PdfOptions();
 
     @Override
     public Integer call() {
@@ -93,17 +104,37 @@ public final class RunCommand implements Callable<Integer> {
             return ExitCode.BAD_INPUT;
         }
         List<RunSummary> results = new ArrayList<>();
+        List<Path> dirs = new ArrayList<>();
+        for (Scenario sc : parsed) {
+            dirs.add(out == null ? Paths.get("out", sc.name()) : parsed.size() == 1 ? out : out.resolve(sc.name()));
+        }
+        Path indexDir = parsed.size() > 1 ? (out == null ? Paths.get("out") : out) : null;
+        RecordHeader.Builder campaign = RecordHeader.begin("Test campaign: " + parsed.size() + " scenarios");
+        PdfPrinter printer;
+        try {
+            // every output folder and the PDF printer before anything runs
+            for (Path dir : dirs) {
+                Runs.checkWritable(dir);
+            }
+            printer = pdf.printer();
+        } catch (IOException e) {
+            err.println(e.getMessage());
+            return ExitCode.IO_ERROR;
+        }
         PrintWriter progress = Runs.progress();
         try {
-            for (Scenario sc : parsed) {
-                Path dir = out == null ? Paths.get("out", sc.name()) : parsed.size() == 1 ? out : out.resolve(sc.name());
-                Runs.checkWritable(dir);
-                RunSummary r = ScenarioRunner.run(sc, new ScenarioRunner.Options(dir, sp, recordEvery, progress));
+            for (int i = 0; i < parsed.size(); i++) {
+                Path dir = dirs.get(i);
+                RunSummary r = ScenarioRunner.run(parsed.get(i), new ScenarioRunner.Options(dir, sp, recordEvery, progress));
                 results.add(r);
                 Runs.printSummaryLine(o, r, dir);
-                if (!r.passed()) {
-                    Runs.printOutcomes(o, r);
-                }
+                Runs.printVerdictDetail(o, err, r, requireCriteria);
+                pdf.print(printer, dir, "report");
+            }
+            if (indexDir != null) {
+                Runs.writeIndex(indexDir, campaign, results, dirs);
+                pdf.print(printer, indexDir, "index");
+                o.println("campaign: " + indexDir.resolve("index.html"));
             }
             if (junit != null) {
                 AtomicOutput.write(junit, JunitXml.render(results));
@@ -115,11 +146,6 @@ public final class RunCommand implements Callable<Integer> {
             err.println("cannot write records: " + e.getMessage());
             return ExitCode.IO_ERROR;
         }
-        for (RunSummary r : results) {
-            if (!r.passed()) {
-                return ExitCode.FAILED;
-            }
-        }
-        return ExitCode.OK;
+        return Runs.exitCode(results, requireCriteria);
     }
 }

@@ -32,7 +32,13 @@ public enum Channel {
     FUEL_CUTOFF("fuel_cutoff", EngUnit.BOOL, 0, "fuel cut-off demanded by the controller"),
     AUTO("auto", EngUnit.BOOL, 0, "controller in automatic"),
     /** Mode code: 0 manual, 1 single-element, 2 three-element. */
-    MODE("mode", EngUnit.FRACTION, 0, "control mode (0 manual, 1 single-element, 2 three-element)");
+    MODE("mode", EngUnit.FRACTION, 0, "control mode (0 manual, 1 single-element, 2 three-element)"),
+    LEVEL_TX_A("level_tx_a", EngUnit.MM, 1, "level transmitter A as the controller reads it (compensated)"),
+    LEVEL_TX_B("level_tx_b", EngUnit.MM, 1, "level transmitter B as the controller reads it (compensated)"),
+    LEVEL_TX_C("level_tx_c", EngUnit.MM, 1, "level transmitter C as the controller reads it (compensated)");
+
+    /** The level transmitters' channels, A, B, C. */
+    public static final Channel[] LEVEL_TX = {LEVEL_TX_A, LEVEL_TX_B, LEVEL_TX_C};
 
     private static final Channel[] VALUES = values();
 

@@ -66,6 +66,22 @@ public final class AtomicOutput implements AutoCloseable {
         }
     }
 
+    /**
+     * Make sure records can be written into a folder before anything runs: creates it and a
+     * temporary file in it (removed at once), so a read-only or full file system, a file in the
+     * folder's place or a missing permission fails here, not half-way through a run.
+     */
+    public static void checkFolder(Path dir) throws IOException {
+        try {
+            Files.createDirectories(dir);
+            Path probe = Files.createTempFile(dir.toAbsolutePath(), ".drumloop-write-check.", ".part");
+            Files.delete(probe);
+        } catch (IOException e) {
+            throw new IOException(dir + ": records cannot be written there (" + e.getClass().getSimpleName()
+                    + (e.getMessage() == null ? "" : ": " + e.getMessage()) + ")", e);
+        }
+    }
+
     /** Write a whole text atomically. */
     public static void write(Path target, String text) throws IOException {
         try (AtomicOutput o = new AtomicOutput(target)) {

@@ -5,7 +5,7 @@ import org.drumloop.bench.expect.Frame;
 
 /**
  * The figures a commissioning record quotes for a level-control run, accumulated scan by scan
- * without allocation: largest level deviation from setpoint, integral of absolute level error,
+ * without allocation: largest deviation from setpoint of the true and of the indicated level, integral of absolute level error,
  * feed-valve travel, and recovery time (from the last scenario action until the level stays
  * within {@link #RECOVERY_BAND_M} of setpoint).
  */
@@ -15,6 +15,8 @@ public final class KeyFigures {
 
     private double maxDeviationM;
     private double maxDeviationAtS = Double.NaN;
+    private double maxIndicatedDeviationM;
+    private double maxIndicatedDeviationAtS = Double.NaN;
     private double iaeMS;
     private double valveTravelFrac;
     private double prevValve = Double.NaN;
@@ -34,6 +36,11 @@ public final class KeyFigures {
             maxDeviationM = a;
             maxDeviationAtS = f.tS;
         }
+        double ind = Math.abs(f.get(Channel.MEASURED_LEVEL) - f.get(Channel.SETPOINT));
+        if (ind > maxIndicatedDeviationM || (Double.isNaN(maxIndicatedDeviationAtS) && !Double.isNaN(ind))) {
+            maxIndicatedDeviationM = ind;
+            maxIndicatedDeviationAtS = f.tS;
+        }
         if (!Double.isNaN(prevS)) {
             iaeMS += a * (f.tS - prevS);
         }
@@ -52,6 +59,15 @@ public final class KeyFigures {
     public double maxDeviationM() { return maxDeviationM; }
 
     public double maxDeviationAtS() { return maxDeviationAtS; }
+
+    /**
+     * Largest deviation of the indicated level (the controller's selected, compensated level) from
+     * setpoint [m]; differs from the true level's when a transmitter reads wrong or the level leaves
+     * the transmitters' range.
+     */
+    public double maxIndicatedDeviationM() { return maxIndicatedDeviationM; }
+
+    public double maxIndicatedDeviationAtS() { return maxIndicatedDeviationAtS; }
 
     public double iaeMS() { return iaeMS; }
 

@@ -18,6 +18,7 @@ import org.drumloop.bench.record.EventLog;
 import org.drumloop.bench.record.HtmlReport;
 import org.drumloop.bench.record.KeyFigures;
 import org.drumloop.bench.record.PlotBuffer;
+import org.drumloop.bench.record.RunRecord;
 import org.drumloop.bench.record.RunSummary;
 import org.drumloop.bench.record.TrendWriter;
 import org.drumloop.bench.scenario.Action;
@@ -170,6 +171,7 @@ public final class ScenarioRunner {
     public static RunSummary run(Scenario sc, Options o) throws ConfigException, IOException {
         long t0 = System.nanoTime();
         Setup setup = setup(sc);
+        RunRecord.Builder record = RunRecord.begin(sc, setup.plantPath(), setup.tuningPath(), setup.tuning());
         SimulationSession s = new SimulationSession(setup.plant(), setup.tuning(), sc.seed(), sc.initialLoadFrac());
         InterlockSet il = s.firmware().interlocks();
         bind(sc, il);
@@ -198,6 +200,7 @@ public final class ScenarioRunner {
             } catch (UncheckedIOException e) {
                 throw e.getCause();
             }
+            summary = summary.withRecord(record.finish());
             if (o.outDir() != null) {
                 trendOut.commit();
                 eventsOut.commit();

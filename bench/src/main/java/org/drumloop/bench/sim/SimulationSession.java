@@ -164,6 +164,12 @@ public final class SimulationSession implements ActionApplier.Loop {
         f.modeLabel = st.mode.label();
         for (int i = 0; i < f.interlockActive.length; i++) {
             f.interlockActive[i] = interlocks.effective(i);
+            f.interlockBypassed[i] = interlocks.bypassed(i);
         }
+        for (int i = 0; i < Channel.LEVEL_TX.length; i++) {
+            v[Channel.LEVEL_TX[i].ordinal()] = st.levelTxM[i];
+            f.levelTxQuality[i] = st.levelTxQuality[i];
+        }
+        f.firstOut = st.firstOut;
     }
 }

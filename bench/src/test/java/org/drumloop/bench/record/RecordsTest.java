@@ -57,6 +57,11 @@ class RecordsTest {
         f.set(Channel.DRUM_LEVEL, -0.0425);
         f.set(Channel.DRUM_PRESSURE, 901_325.0);
         f.interlockActive[1] = true;
+        f.interlockBypassed[0] = true;
+        f.firstOut = 1;
+        f.set(Channel.LEVEL_TX_B, -0.3);
+        f.levelTxQuality[0] = org.drumloop.core.io.Quality.GOOD;
+        f.levelTxQuality[1] = org.drumloop.core.io.Quality.UNCERTAIN;
         t.write(f);
         String[] lines = w.toString().split("\n");
         assertEquals(2, lines.length);
@@ -65,16 +70,23 @@ class RecordsTest {
         assertEquals("drum_level[mm]", head[1]);
         assertEquals("drum_pressure[barg]", head[1 + Channel.DRUM_PRESSURE.ordinal()]);
         assertEquals("steam_flow[t/h]", head[1 + Channel.STEAM_FLOW.ordinal()]);
-        assertEquals("LALL[bool]", head[head.length - 1]);
-        String[] row = lines[1].split(",");
+        List<String> h = List.of(head);
+        String[] row = lines[1].split(",", -1);
         assertEquals(head.length, row.length);
+        assertEquals("-300.0", row[h.indexOf("level_tx_b[mm]")]);
+        assertEquals("good", row[h.indexOf("level_tx_a_quality")]);
+        assertEquals("uncertain", row[h.indexOf("level_tx_b_quality")]);
+        assertEquals("bad", row[h.indexOf("level_tx_c_quality")]);
+        assertEquals("LALL", row[h.indexOf("first_out")]);
+        assertEquals("1", row[h.indexOf("LAL_bypassed[bool]")]);
+        assertEquals("0", row[h.indexOf("LALL_bypassed[bool]")]);
         assertEquals("1.50", row[0]);
         // -0.0425 m = -42.5 mm, one decimal, HALF_UP on the magnitude
         assertEquals("-42.5", row[1]);
         // 901325 Pa abs = 8.000 barg with the standard atmosphere 101325 Pa (ISO 2533)
         assertEquals("8.000", row[1 + Channel.DRUM_PRESSURE.ordinal()]);
-        assertEquals("1", row[row.length - 1]);
-        assertEquals("0", row[row.length - 2]);
+        assertEquals("1", row[h.indexOf("LALL[bool]")]);
+        assertEquals("0", row[h.indexOf("LAL[bool]")]);
     }
 
     @Test
