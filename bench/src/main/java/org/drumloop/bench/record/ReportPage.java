@@ -84,7 +84,7 @@ public final class ReportPage {
             "thead th{background:#eceae4;font-weight:600}",
             "table.figures th,table.header th{width:30%;font-weight:normal;color:#444}",
             "table.header,table.inputs{font-size:.85em}table.inputs{margin-top:6px}",
-            "code.hash{font-size:.85em;word-break:break-all}",
+            "code.hash{font-size:.85em;word-break:break-all}td code,td a{overflow-wrap:anywhere}",
             "tr.expectation.pass td:nth-child(3){color:#3d6b47;font-weight:600}",
             "tr.expectation.fail td{background:#f8e8e3}tr.expectation.fail td:nth-child(3){color:#a4513a;font-weight:700}",
             "tr.k-trip td{color:#8e3f2b}tr.k-alarm td{color:#8a6a20}",

@@ -41,20 +41,37 @@ public record RunRecord(RecordHeader header, FirmwareConfig firmware, String tun
     public static Builder begin(Scenario sc, Path plantFile, Path tuningFile, FirmwareConfig fc) throws IOException {
         Builder b = new Builder(RecordHeader.begin(sc.title()), fc);
         if (sc.path() != null) {
-            b.header.input("scenario", sc.path(), ConfigResolver.displayName(sc.path()));
+            b.header.input("scenario", sc.path(), shown(sc.path()));
         } else {
             b.header.input(new InputFile("scenario", sc.file() + " (text)", sha256(String.join("\n", sc.source()) + "\n")));
         }
-        b.header.input("plant", plantFile, ConfigResolver.displayName(plantFile));
-        b.header.input("tuning", tuningFile, ConfigResolver.displayName(tuningFile));
-        b.tuningShown = ConfigResolver.displayName(tuningFile);
+        b.header.input("plant", plantFile, shown(plantFile));
+        b.header.input("tuning", tuningFile, shown(tuningFile));
+        b.tuningShown = shown(tuningFile);
         if (fc != null) {
             Path il = Path.of(fc.interlocks().fileName());
-            b.interlocksShown = ConfigResolver.displayName(il);
+            b.interlocksShown = shown(il);
             b.header.input("interlocks", il, b.interlocksShown);
         }
         b.header.seed(sc.seed());
         return b;
+    }
+
+    /**
+     * A file as the record names it: shipped files as {@code config/KIND/NAME}, files under the
+     * working directory relative to it, others as given.
+     */
+    static String shown(Path p) {
+        String d = ConfigResolver.displayName(p);
+        Path dp = Path.of(d);
+        if (dp.isAbsolute()) {
+            Path cwd = Path.of("").toAbsolutePath();
+            Path n = dp.normalize();
+            if (n.startsWith(cwd)) {
+                return cwd.relativize(n).toString().replace('\\', '/');
+            }
+        }
+        return d;
     }
 
     static String sha256(String text) {
@@ -85,7 +102,7 @@ public record RunRecord(RecordHeader header, FirmwareConfig firmware, String tun
         /** The channel map of a run over Modbus (listed in the settings and hashed as an input). */
         public Builder channelMap(ChannelMap m, Path file) throws IOException {
             this.map = m;
-            this.mapShown = ConfigResolver.displayName(file);
+            this.mapShown = shown(file);
             header.input("channel map", file, mapShown);
             return this;
         }

@@ -22,7 +22,7 @@ import java.util.regex.Pattern;
  * (https://www.w3.org/TR/webdriver2/) with the JDK HTTP client: no browser download at test time.
  * chromedriver is started on port 0 and reports the port it took; everything stays on loopback.
  */
-final class WebDriverClient implements AutoCloseable {
+public final class WebDriverClient implements AutoCloseable {
     static final Path CHROMIUM = Path.of("/usr/bin/chromium");
     static final Path CHROMEDRIVER = Path.of("/usr/bin/chromedriver");
     /** W3C WebDriver: the key under which an element reference is returned. */
@@ -42,7 +42,7 @@ final class WebDriverClient implements AutoCloseable {
         }
     }
 
-    WebDriverClient(Path userDataDir, int width, int height) throws IOException, InterruptedException {
+    public WebDriverClient(Path userDataDir, int width, int height) throws IOException, InterruptedException {
         requireBrowser();
         driver = new ProcessBuilder(CHROMEDRIVER.toString(), "--port=0").redirectErrorStream(true).start();
         BufferedReader out = new BufferedReader(new InputStreamReader(driver.getInputStream(), StandardCharsets.UTF_8));
@@ -107,7 +107,7 @@ final class WebDriverClient implements AutoCloseable {
         return "/session/" + session + rest;
     }
 
-    void navigate(String url) throws IOException, InterruptedException {
+    public void navigate(String url) throws IOException, InterruptedException {
         call("POST", s("/url"), "{\"url\":" + MiniJson.quote(url) + "}");
     }
 
@@ -159,6 +159,16 @@ final class WebDriverClient implements AutoCloseable {
 
     void dismissAlert() throws IOException, InterruptedException {
         call("POST", s("/alert/dismiss"), "{}");
+    }
+
+    /**
+     * Print the current page to PDF (W3C WebDriver "Print Page", section 18.1) on paper of the given
+     * size [cm], with backgrounds and without the browser's own header and footer.
+     */
+    public byte[] printPdf(double widthCm, double heightCm) throws IOException, InterruptedException {
+        String body = String.format(java.util.Locale.ROOT,
+                "{\"page\":{\"width\":%.2f,\"height\":%.2f},\"background\":true,\"shrinkToFit\":false}", widthCm, heightCm);
+        return Base64.getDecoder().decode((String) call("POST", s("/print"), body));
     }
 
     byte[] screenshotPng() throws IOException, InterruptedException {

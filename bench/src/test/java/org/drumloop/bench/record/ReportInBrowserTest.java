@@ -103,6 +103,85 @@ class ReportInBrowserTest {
                 "no network references apart from the SVG namespace");
     }
 
+    /** Paper sizes the print stylesheet is laid out for [cm]: ISO 216 A4 and ANSI Letter (8.5 x 11 in). */
+    static final double[][] PAPERS = {{21.0, 29.7}, {21.59, 27.94}};
+    /** The plots' captions (above each SVG); every plot ends with its time-axis label at the bottom. */
+    static final String[] PLOT_TOPS = {"Drum level relative to normal water level", "Steam and feed flow",
+        "Feed valve and firing", "Drum pressure [barg]"};
+    static final String PLOT_BOTTOM = "t [s]";
+
+    /** Run a poppler-utils command (Debian package poppler-utils) and return its standard output. */
+    static String poppler(String... cmd) throws IOException, InterruptedException {
+        Process p;
+        try {
+            p = new ProcessBuilder(cmd).redirectErrorStream(false).start();
+        } catch (IOException e) {
+            throw new AssertionError("the PDF checks need poppler-utils (" + cmd[0] + "): apt-get install poppler-utils", e);
+        }
+        String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(p.waitFor(TIMEOUT_S, TimeUnit.SECONDS), cmd[0] + " finished");
+        assertEquals(0, p.exitValue(), String.join(" ", cmd) + " failed");
+        return out;
+    }
+
+    static int pages(Path pdf) throws Exception {
+        Matcher m = Pattern.compile("(?m)^Pages:\\s+(\\d+)").matcher(poppler("pdfinfo", pdf.toString()));
+        assertTrue(m.find(), "pdfinfo names the page count");
+        return Integer.parseInt(m.group(1));
+    }
+
+    /**
+     * Each plot on one page: the plots follow the "Trends" heading in order; on the page where a
+     * plot's top (its caption) is printed, its bottom (the time-axis label) follows on the
+     * same page. A plot cut by a page break would carry its lower part, and with it the axis label,
+     * to the next page.
+     */
+    static void assertNoPlotSplit(Path pdf) throws Exception {
+        int n = pages(pdf);
+        assertTrue(n > 0, "at least one page");
+        List<String> text = new ArrayList<>();
+        for (int page = 1; page <= n; page++) {
+            text.add(poppler("pdftotext", "-layout", "-f", Integer.toString(page), "-l", Integer.toString(page),
+                    pdf.toString(), "-"));
+        }
+        int page = 0;
+        int at = -1;
+        while (page < n && (at = text.get(page).indexOf("Trends")) < 0) {
+            page++;
+        }
+        assertTrue(page < n, pdf.getFileName() + ": the Trends section is printed");
+        for (String top : PLOT_TOPS) {
+            int from = at;
+            while (page < n && (at = text.get(page).indexOf(top, from)) < 0) {
+                page++;
+                from = 0;
+            }
+            assertTrue(page < n, pdf.getFileName() + ": the plot starting with '" + top + "' is printed");
+            int bottom = text.get(page).indexOf(PLOT_BOTTOM, at);
+            assertTrue(bottom > at, pdf.getFileName() + ": the plot that starts with '" + top + "' on page "
+                    + (page + 1) + " of " + n + " is cut by the page break");
+            at = bottom + PLOT_BOTTOM.length();
+        }
+    }
+
+    @Test
+    void printedOnA4AndLetterNoPlotIsCutAcrossPages() throws Exception {
+        Path profile = Files.createTempDirectory(DIR.toAbsolutePath(), "profile-");
+        try (org.drumloop.bench.live.WebDriverClient b = new org.drumloop.bench.live.WebDriverClient(profile, 1200, 900)) {
+            b.navigate(DIR.resolve("report.html").toAbsolutePath().toUri().toString());
+            for (double[] paper : PAPERS) {
+                Path pdf = DIR.resolve(String.format(java.util.Locale.ROOT, "print-%.0fx%.0fmm.pdf", paper[0] * 10,
+                        paper[1] * 10));
+                Files.write(pdf, b.printPdf(paper[0], paper[1]));
+                assertNoPlotSplit(pdf);
+                String all = poppler("pdftotext", pdf.toString(), "-");
+                assertTrue(all.contains("Sign-off") && all.contains("Witnessed by"), "sign-off block printed");
+            }
+        } finally {
+            deleteTree(profile);
+        }
+    }
+
     @Test
     void aScreenshotIsNotBlank() throws Exception {
         for (String page : new String[] {"report.html", "plots.html"}) {
