@@ -395,38 +395,4 @@ public final class HtmlReport {
     static String fmt(double v, int d) {
         return Double.isNaN(v) ? "n/a" : Expectation.fmt(v, d);
     }
-
-    private static final String CSS = String.join("\n",
-            "body{font-family:system-ui,-apple-system,'Segoe UI',Roboto,'DejaVu Sans',sans-serif;color:#24282d;",
-            "background:#f7f6f2;margin:0 auto;max-width:1080px;padding:18px 20px 40px;line-height:1.45}",
-            "h1{font-size:1.45em;margin:.1em 0 .2em;font-weight:600}",
-            "h2{font-size:1.1em;margin:1.6em 0 .5em;font-weight:600;color:#34557a;border-bottom:1px solid #d8d5cc;padding-bottom:3px}",
-            "header{border-bottom:2px solid #34557a;padding-bottom:6px;margin-bottom:10px}",
-            ".meta{color:#5c626a;margin:0;font-size:.92em}",
-            ".verdict{float:right;font-weight:700;padding:6px 14px;border-radius:3px;letter-spacing:.06em;color:#fff}",
-            ".verdict.pass{background:#4a7a55}.verdict.fail{background:#a4513a}",
-            ".caution{background:#f1ead8;border-left:4px solid #b0892f;padding:8px 12px;font-size:.9em;margin:12px 0}",
-            ".warn{background:#f4e1da;border-left:4px solid #a4513a;padding:8px 12px}",
-            "table{border-collapse:collapse;width:100%;font-size:.9em;background:#fff}",
-            "th,td{border:1px solid #dedbd3;padding:4px 8px;text-align:left;vertical-align:top}",
-            "thead th{background:#eceae4;font-weight:600}",
-            "table.figures th{width:45%;font-weight:normal;color:#444}",
-            "tr.expectation.pass td:nth-child(3){color:#3d6b47;font-weight:600}",
-            "tr.expectation.fail td{background:#f8e8e3}tr.expectation.fail td:nth-child(3){color:#a4513a;font-weight:700}",
-            "tr.k-trip td{color:#8e3f2b}tr.k-alarm td{color:#8a6a20}",
-            "code{font-family:'DejaVu Sans Mono',Menlo,Consolas,monospace;font-size:.92em}",
-            "figure{margin:10px 0 18px}figcaption{font-size:.88em;color:#5c626a;margin-bottom:3px}",
-            "svg.plot{background:#fff;border:1px solid #dedbd3;max-width:100%;height:auto}",
-            "svg .area{fill:#fff}svg .grid{stroke:#ebe9e3;stroke-width:1}",
-            "svg text{font-family:system-ui,'DejaVu Sans',sans-serif;font-size:11px;fill:#5c626a}",
-            "svg .ylab{text-anchor:end}svg .xlab{text-anchor:middle}svg .xunit{text-anchor:end}",
-            "svg .legend{fill:#333}",
-            "svg .series{fill:none;stroke-width:1.6;stroke-linejoin:round}svg .dashed{stroke-dasharray:5 3}",
-            "svg .limit{stroke-width:1.2}svg .limit.alarm{stroke:#b0892f;stroke-dasharray:6 4}svg .limit.trip{stroke:#a4513a}",
-            "svg .limlab{fill:#8a6a20;font-size:10px}",
-            "svg .marker{stroke-width:1;opacity:.55}svg .marker.alarm{stroke:#b0892f;stroke-dasharray:2 3}svg .marker.trip{stroke:#a4513a}",
-            "svg .mk-alarm{fill:#b0892f}svg .mk-trip{fill:#a4513a}",
-            "pre.source{background:#fff;border:1px solid #dedbd3;padding:8px;font-size:.85em;overflow-x:auto}",
-            "footer{margin-top:24px;color:#7b8088;font-size:.8em}",
-            "");
 }

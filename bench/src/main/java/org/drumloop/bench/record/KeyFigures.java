@@ -5,8 +5,8 @@ import org.drumloop.bench.expect.Frame;
 
 /**
  * The figures a commissioning record quotes for a level-control run, accumulated scan by scan
- * without allocation: largest deviation from setpoint of the true and of the indicated level, integral of absolute level error,
- * feed-valve travel, and recovery time (from the last scenario action until the level stays
+ * without allocation: largest deviation from setpoint of the true and of the indicated level,
+ * integral of absolute level error, feed-valve travel, and recovery time (from the last scenario action until the level stays
  * within {@link #RECOVERY_BAND_M} of setpoint).
  */
 public final class KeyFigures {
