@@ -77,7 +77,12 @@ public final class Main implements Runnable {
         cl.setOut(out);
         cl.setErr(err);
         Invocation.set(args);
-        int code = cl.execute(args);
+        int code;
+        try {
+            code = cl.execute(args);
+        } finally {
+            Invocation.clear();
+        }
         out.flush();
         err.flush();
         return code;

@@ -19,6 +19,11 @@ public final class Invocation {
         args = List.of(a);
     }
 
+    /** Forget the arguments once the command is done (a later run in the same process is not from them). */
+    public static void clear() {
+        args = null;
+    }
+
     /** The command line, or a note that the run did not come from the command line (e.g. a test). */
     public static String text() {
         List<String> a = args;
