@@ -65,8 +65,7 @@ public final class CampaignIndex {
         }
         RunSummary.Verdict v = verdict(runs);
         ReportPage.open(sb, h.title(), h.dateText());
-        String cls = v == RunSummary.Verdict.PASS ? "pass" : v == RunSummary.Verdict.FAIL ? "fail" : "none";
-        sb.append("<header><div class=\"verdict ").append(cls).append("\" id=\"verdict\">").append(v.text())
+        sb.append("<header><div class=\"verdict ").append(v.css()).append("\" id=\"verdict\">").append(v.text())
                 .append("</div><h1>").append(Html.esc(h.title())).append("</h1>\n<p class=\"meta\">")
                 .append(entries.size()).append(" scenarios &middot; run ").append(Html.esc(h.utcText()))
                 .append("</p></header>\n");

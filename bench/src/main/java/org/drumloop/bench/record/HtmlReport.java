@@ -68,8 +68,7 @@ public final class HtmlReport {
         RunRecord rec = r.record();
         ReportPage.open(sb, title, rec == null ? "" : rec.header().dateText());
         RunSummary.Verdict v = r.verdict();
-        String cls = v == RunSummary.Verdict.PASS ? "pass" : v == RunSummary.Verdict.FAIL ? "fail" : "none";
-        sb.append("<header><div class=\"verdict ").append(cls).append("\" id=\"verdict\">")
+        sb.append("<header><div class=\"verdict ").append(v.css()).append("\" id=\"verdict\">")
                 .append(v.text()).append("</div><h1>").append(Html.esc(title)).append("</h1>\n");
         sb.append("<p class=\"meta\">scenario <code>").append(Html.esc(r.scenario().file()))
                 .append("</code> &middot; plant <code>").append(Html.esc(r.plantName()))
@@ -119,13 +118,13 @@ public final class HtmlReport {
         row(sb, "largest deviation of the indicated level (controller's selected level) from setpoint",
                 fmt(k.maxIndicatedDeviationM() * 1000, 1) + " mm at " + fmt(k.maxIndicatedDeviationAtS(), 1) + " s"
                 + (Math.abs(k.maxIndicatedDeviationM() - k.maxDeviationM()) > DEVIATIONS_DIFFER_M
-                        ? " &mdash; differs from the true level (transmitter range, failure or swell compensation)" : ""));
+                        ? " &mdash; differs from the true level (transmitter range, failure, noise or density compensation)" : ""));
         row(sb, "integral of absolute level error (IAE, true level)", fmt(k.iaeMS() * 1000, 0) + " mm&middot;s");
         row(sb, "feed valve travel", fmt(k.valveTravelFrac() * 100, 1) + " % of stroke");
-        double rec2 = k.recoveryS();
+        double recovery = k.recoveryS();
         row(sb, "recovery after the last action (true level within &plusmn;"
                 + fmt(KeyFigures.RECOVERY_BAND_M * 1000, 0) + " mm of setpoint)",
-                Double.isNaN(rec2) ? "not recovered by the end" : fmt(rec2, 1) + " s");
+                Double.isNaN(recovery) ? "not recovered by the end" : fmt(recovery, 1) + " s");
         row(sb, "scans", Long.toString(r.scans()));
         row(sb, "events", r.events().size() + (r.soeLost() > 0 ? " (" + r.soeLost() + " SOE events lost)" : ""));
         sb.append("</tbody></table>\n");

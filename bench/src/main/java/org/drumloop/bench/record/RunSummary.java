@@ -45,6 +45,9 @@ public record RunSummary(Scenario scenario, String plantName, String tuningName,
 
         /** As printed and shown on reports. */
         public String text() { return text; }
+
+        /** Style class of the verdict on records: pass, fail, none. */
+        public String css() { return this == PASS ? "pass" : this == FAIL ? "fail" : "none"; }
     }
 
     /** A summary without the record (header and settings). */
