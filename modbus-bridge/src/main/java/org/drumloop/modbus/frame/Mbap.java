@@ -21,6 +21,15 @@ public record Mbap(int transactionId, int protocolId, int length, int unitId) {
         return protocolId == 0 && length >= 2 && length <= Modbus.MAX_PDU + 1;
     }
 
+    /** {@link #plausible()} of the header at {@code buf[off..off+7)}, without decoding it into a record. */
+    public static boolean plausible(byte[] buf, int off) {
+        int length = u16(buf, off + 4);
+        return u16(buf, off + 2) == 0 && length >= 2 && length <= Modbus.MAX_PDU + 1;
+    }
+
+    /** {@link #pduLength()} of the header at {@code buf[off..off+7)}. */
+    public static int pduLength(byte[] buf, int off) { return u16(buf, off + 4) - 1; }
+
     /** Decode the header at {@code buf[off..off+7)}. */
     public static Mbap decode(byte[] buf, int off) {
         return new Mbap(u16(buf, off), u16(buf, off + 2), u16(buf, off + 4), buf[off + 6] & 0xFF);

@@ -7,6 +7,9 @@ import org.drumloop.modbus.SerialSettings;
 import org.drumloop.modbus.TcpEndpoint;
 import org.drumloop.modbus.map.ChannelMap;
 import org.drumloop.modbus.stats.LinkStatistics;
+import org.drumloop.modbus.stats.ProblemLog;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 
 /**
  * Serves a process image as a Modbus server (slave) over TCP or RTU, laid out by a channel map.
@@ -18,6 +21,7 @@ import org.drumloop.modbus.stats.LinkStatistics;
  * under a short lock and never wait on the network.
  */
 public final class ImageServer implements AutoCloseable {
+    private static final Logger LOG = LoggerFactory.getLogger(ImageServer.class);
     private final ServedImage image;
     private final LinkStatistics stats;
     private final AutoCloseable transport;
@@ -30,19 +34,32 @@ public final class ImageServer implements AutoCloseable {
         this.port = port;
     }
 
-    /** Serve over Modbus TCP on {@code endpoint} (port 0 picks a free port; see {@link #port()}). */
+    /**
+     * Serve over Modbus TCP on {@code endpoint} (port 0 picks a free port; see {@link #port()}) with
+     * the default limits.
+     */
     public static ImageServer tcp(ChannelMap map, TcpEndpoint endpoint) throws IOException {
-        ServedImage img = new ServedImage(map);
-        LinkStatistics st = new LinkStatistics("server tcp " + endpoint);
-        TcpServer t = new TcpServer(img, st, endpoint.host(), endpoint.port());
-        return new ImageServer(img, st, t, t.port());
+        return tcp(map, endpoint, ServerLimits.DEFAULT);
+    }
+
+    /** Serve over Modbus TCP on {@code endpoint} with at most {@code limits} connections and their idle timeout. */
+    public static ImageServer tcp(ChannelMap map, TcpEndpoint endpoint, ServerLimits limits) throws IOException {
+        ProblemLog problems = new ProblemLog(LOG);
+        ServedImage img = new ServedImage(map, problems);
+        if (Boolean.getBoolean("drumloop.modbus.nio")) {
+            NioTcpServer t = new NioTcpServer(img, limits, endpoint.host(), endpoint.port(), problems);
+            return new ImageServer(img, t.statistics(), t, t.port());
+        }
+        TcpServer t = new TcpServer(img, limits, endpoint.host(), endpoint.port(), problems);
+        return new ImageServer(img, t.statistics(), t, t.port());
     }
 
     /** Serve over Modbus RTU on a serial line. */
     public static ImageServer rtu(ChannelMap map, SerialSettings serial) throws IOException {
-        ServedImage img = new ServedImage(map);
+        ProblemLog problems = new ProblemLog(LOG);
+        ServedImage img = new ServedImage(map, problems);
         LinkStatistics st = new LinkStatistics("server rtu " + serial.device());
-        return new ImageServer(img, st, new RtuServer(img, st, serial), -1);
+        return new ImageServer(img, st, new RtuServer(img, st, serial, problems), -1);
     }
 
     /** Bound TCP port, or -1 for RTU. */

@@ -9,8 +9,10 @@ import org.drumloop.modbus.frame.Modbus;
 import org.drumloop.modbus.frame.RtuFrameParser;
 import org.drumloop.modbus.frame.RtuFrames;
 import org.drumloop.modbus.stats.LinkStatistics;
+import org.drumloop.modbus.stats.ProblemLog;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.slf4j.event.Level;
 
 /**
  * Modbus RTU slave transport of an {@link ImageServer} on a serial line. Frames end by their
@@ -31,11 +33,17 @@ final class RtuServer implements AutoCloseable {
     private final SerialLine line;
     private final long gapNs;
     private final Thread worker;
+    private final ProblemLog problems;
+    private final ProblemLog.Kind crcLog;
+    private final ProblemLog.Kind droppedLog;
     private volatile boolean open = true;
 
-    RtuServer(ServedImage image, LinkStatistics stats, SerialSettings settings) throws IOException {
+    RtuServer(ServedImage image, LinkStatistics stats, SerialSettings settings, ProblemLog problems) throws IOException {
         this.image = image;
         this.stats = stats;
+        this.problems = problems;
+        this.crcLog = problems.kind("frames with a bad CRC", Level.WARN);
+        this.droppedLog = problems.kind("partial or overlong frames dropped", Level.WARN);
         double gapS = Math.max(RtuFrames.t35S(settings.baud()), MIN_GAP_S);
         this.gapNs = (long) (gapS * 1e9);
         this.line = SerialLine.open(settings, (int) Math.ceil(gapS * 1000));
@@ -49,6 +57,7 @@ final class RtuServer implements AutoCloseable {
         byte[] in = new byte[Modbus.MAX_RTU_ADU];
         byte[] resp = new byte[Modbus.MAX_RTU_ADU];
         long lastByteNs = System.nanoTime();
+        long nextFlushNs = lastByteNs;
         while (open) {
             int n = line.read(in, 0, in.length);
             long now = System.nanoTime();
@@ -60,27 +69,36 @@ final class RtuServer implements AutoCloseable {
                 return;
             }
             if (n == 0 || now - lastByteNs >= gapNs) {
-                RtuFrameParser.Result r = parser.silence();
-                if (r == RtuFrameParser.Result.FRAME) {
-                    answer(parser, resp);
-                } else if (r == RtuFrameParser.Result.BAD_CRC) {
-                    stats.crcError();
-                } else if (r == RtuFrameParser.Result.DROPPED) {
-                    LOG.debug("partial frame dropped after silence");
-                }
+                outcome(parser.silence(), parser, resp);
+            }
+            if (now - nextFlushNs >= 0) {
+                problems.flushDue();
+                nextFlushNs = now + 1_000_000_000L;
             }
             if (n == 0) {
                 continue;
             }
             lastByteNs = now;
             for (int k = 0; k < n; k++) {
-                RtuFrameParser.Result r = parser.feed(in[k]);
-                if (r == RtuFrameParser.Result.FRAME) {
-                    answer(parser, resp);
-                } else if (r == RtuFrameParser.Result.BAD_CRC) {
-                    stats.crcError();
-                }
+                outcome(parser.feed(in[k]), parser, resp);
             }
+        }
+    }
+
+    /** Act on what the parser made of a byte or a silence. */
+    private void outcome(RtuFrameParser.Result r, RtuFrameParser parser, byte[] resp) {
+        switch (r) {
+            case FRAME -> answer(parser, resp);
+            case BAD_CRC -> {
+                stats.crcError();
+                crcLog.report("{}: frame with a bad CRC ({} bytes) ignored", stats.name(), parser.length());
+            }
+            case DROPPED, OVERFLOW -> {
+                stats.badFrame();
+                droppedLog.report("{}: {} frame dropped", stats.name(), r == RtuFrameParser.Result.DROPPED
+                        ? "partial" : "overlong");
+            }
+            default -> { }
         }
     }
 
@@ -93,8 +111,8 @@ final class RtuServer implements AutoCloseable {
             return;
         }
         long t0 = System.nanoTime();
-        stats.request();
         if (broadcast) {
+            stats.request();
             for (int u = 1; u < 248; u++) {
                 if (image.serves(u)) {
                     image.handle(u, f, 1, len - 3, resp, 1);
@@ -103,11 +121,7 @@ final class RtuServer implements AutoCloseable {
             return;
         }
         int n = image.handle(address, f, 1, len - 3, resp, 1);
-        if ((resp[1] & Modbus.EXCEPTION_FLAG) != 0) {
-            stats.exception(resp[2]);
-        } else {
-            stats.ok(System.nanoTime() - t0);
-        }
+        stats.served((resp[1] & Modbus.EXCEPTION_FLAG) != 0 ? resp[2] & 0xFF : 0, System.nanoTime() - t0);
         resp[0] = (byte) address;
         Crc16.append(resp, 0, n + 1);
         if (!line.write(resp, 0, n + 3)) {
@@ -124,5 +138,6 @@ final class RtuServer implements AutoCloseable {
             Thread.currentThread().interrupt();
         }
         line.close();
+        problems.flush();
     }
 }

@@ -10,8 +10,10 @@ import org.drumloop.modbus.map.Channel;
 import org.drumloop.modbus.map.ChannelMap;
 import org.drumloop.modbus.map.Scaling;
 import org.drumloop.modbus.map.Table;
+import org.drumloop.modbus.stats.ProblemLog;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.slf4j.event.Level;
 
 /**
  * The Modbus tables a server shows for one channel map, and the request handler over them.
@@ -35,14 +37,22 @@ public final class ServedImage {
     private final Object lock = new Object();
     private final UnitBank[] units = new UnitBank[256];
     private final Channel[] channels;
+    private final ProblemLog.Kind[] clampLog;
     private final double[] outEng;
     private final double[] outWrittenS;
     private final int[] scratch = new int[2];
     private double lastPublishS = 0.0;
 
-    public ServedImage(ChannelMap map) {
+    public ServedImage(ChannelMap map) { this(map, new ProblemLog(LOG)); }
+
+    /** Clamped writes are logged through {@code problems}: one line a second per channel at most, with counts. */
+    public ServedImage(ChannelMap map, ProblemLog problems) {
         List<Channel> list = map.channels();
         channels = list.toArray(new Channel[0]);
+        clampLog = new ProblemLog.Kind[channels.length];
+        for (int i = 0; i < channels.length; i++) {
+            clampLog[i] = problems.kind("clamped writes to " + channels[i].signal().tag(), Level.WARN);
+        }
         outEng = new double[channels.length];
         outWrittenS = new double[channels.length];
         java.util.Arrays.fill(outWrittenS, Double.NaN);
@@ -302,7 +312,7 @@ public final class ServedImage {
         Channel c = channels[i];
         double clamped = Scaling.clamp(eng, c.engLo(), c.engHi());
         if (clamped != eng) {
-            LOG.warn("{} written as {} {}, outside {}..{}: clamped to {}", c.signal().tag(), eng,
+            clampLog[i].report("{} written as {} {}, outside {}..{}: clamped to {}", c.signal().tag(), eng,
                     c.engUnit().symbol(), c.engLo(), c.engHi(), clamped);
         }
         c.engToRegisters(clamped, t.value, c.address());

@@ -2,7 +2,6 @@ package org.drumloop.modbus.server;
 
 import java.io.BufferedInputStream;
 import java.io.BufferedOutputStream;
-import java.io.EOFException;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.OutputStream;
@@ -10,111 +9,172 @@ import java.net.InetAddress;
 import java.net.InetSocketAddress;
 import java.net.ServerSocket;
 import java.net.Socket;
-import java.util.Set;
-import java.util.concurrent.ConcurrentHashMap;
+import java.net.SocketTimeoutException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.LinkedBlockingQueue;
+import java.util.concurrent.ThreadPoolExecutor;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicInteger;
 
+import org.drumloop.modbus.TcpEndpoint;
 import org.drumloop.modbus.frame.Mbap;
 import org.drumloop.modbus.frame.Modbus;
 import org.drumloop.modbus.stats.LinkStatistics;
+import org.drumloop.modbus.stats.ProblemLog;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.slf4j.event.Level;
 
 /**
- * Modbus TCP transport of an {@link ImageServer}: plain sockets, one thread per connection, MBAP
- * framing. A header that cannot start a Modbus ADU (protocol id not 0, length out of 2..254)
- * closes the connection, as the TCP guide expects. A unit id without channels answers exception
- * 0x0B (gateway target failed to respond).
+ * Modbus TCP transport of an {@link ImageServer}: blocking sockets served by a pool of at most
+ * {@link ServerLimits#maxConnections()} threads, one per open connection, MBAP framing. The
+ * acceptor thread admits connections ({@link Connections}: the limit, eviction of the connection
+ * idle longest) and closes idle ones. A header that cannot start a Modbus ADU (protocol id not 0,
+ * length out of 2..254) closes the connection, as the TCP guide expects.
  */
 final class TcpServer implements AutoCloseable {
     private static final Logger LOG = LoggerFactory.getLogger(TcpServer.class);
 
     private final ServedImage image;
-    private final LinkStatistics stats;
     private final ServerSocket listener;
-    private final Set<Socket> clients = ConcurrentHashMap.newKeySet();
+    private final Connections connections;
+    private final LinkStatistics stats;
+    private final ProblemLog problems;
+    private final ProblemLog.Kind badHeader;
+    private final ProblemLog.Kind acceptFailed;
+    private final ExecutorService pool;
     private final Thread acceptor;
     private volatile boolean open = true;
 
-    TcpServer(ServedImage image, LinkStatistics stats, String host, int port) throws IOException {
+    TcpServer(ServedImage image, ServerLimits limits, String host, int port, ProblemLog problems)
+            throws IOException {
         this.image = image;
-        this.stats = stats;
+        this.problems = problems;
+        this.badHeader = problems.kind("connections closed for a bad header", Level.WARN);
+        this.acceptFailed = problems.kind("failed accepts", Level.WARN);
         listener = new ServerSocket();
         listener.setReuseAddress(true);
         listener.bind(new InetSocketAddress(InetAddress.getByName(host), port), 50);
+        String name = "server tcp " + new TcpEndpoint(listener.getInetAddress().getHostAddress(), listener.getLocalPort());
+        stats = new LinkStatistics(name);
+        connections = new Connections(limits, stats, problems, name, System.nanoTime());
+        listener.setSoTimeout((int) Math.max(1, connections.checkPeriodNs() / 1_000_000));
+        AtomicInteger n = new AtomicInteger();
+        ThreadPoolExecutor p = new ThreadPoolExecutor(limits.maxConnections(), limits.maxConnections(), 30, TimeUnit.SECONDS,
+                new LinkedBlockingQueue<>(), r -> {
+                    Thread t = new Thread(r, "modbus-tcp-" + listener.getLocalPort() + "-conn-" + n.incrementAndGet());
+                    t.setDaemon(true);
+                    return t;
+                });
+        p.allowCoreThreadTimeOut(true);
+        pool = p;
         acceptor = new Thread(this::acceptLoop, "modbus-tcp-accept-" + listener.getLocalPort());
         acceptor.setDaemon(true);
         acceptor.start();
     }
 
+    LinkStatistics statistics() { return stats; }
+
     int port() { return listener.getLocalPort(); }
 
     private void acceptLoop() {
-        int n = 0;
+        long nextCheckNs = System.nanoTime();
         while (open) {
+            Socket s = null;
             try {
-                Socket s = listener.accept();
-                s.setTcpNoDelay(true);
-                clients.add(s);
-                Thread t = new Thread(() -> serve(s), "modbus-tcp-conn-" + (++n));
-                t.setDaemon(true);
-                t.start();
+                s = listener.accept();
+            } catch (SocketTimeoutException e) {
+                // housekeeping below
             } catch (IOException e) {
                 if (open) {
-                    LOG.warn("accept failed: {}", e.toString());
+                    acceptFailed.report("accept failed: {}", e.toString());
                 }
+            }
+            long now = System.nanoTime();
+            if (now - nextCheckNs >= 0) {
+                connections.closeIdle(now);
+                problems.flushDue();
+                nextCheckNs = now + connections.checkPeriodNs();
+            }
+            if (s != null) {
+                admit(s, now);
             }
         }
     }
 
-    private void serve(Socket s) {
+    private void admit(Socket s, long now) {
+        try {
+            s.setTcpNoDelay(true);
+        } catch (IOException e) {
+            LOG.debug("no TCP_NODELAY: {}", e.toString());
+        }
+        Connections.Conn c = connections.admit(String.valueOf(s.getRemoteSocketAddress()).replaceFirst("^/", ""),
+                () -> closeQuietly(s), now);
+        pool.execute(() -> serve(s, c));
+    }
+
+    private void serve(Socket s, Connections.Conn c) {
         byte[] req = new byte[Modbus.MAX_TCP_ADU];
         byte[] resp = new byte[Modbus.MAX_TCP_ADU];
+        String how = "server closed";
         try (s; InputStream in = new BufferedInputStream(s.getInputStream());
              OutputStream out = new BufferedOutputStream(s.getOutputStream())) {
             while (open) {
-                readFully(in, req, 0, Modbus.MBAP_LENGTH);
-                Mbap h = Mbap.decode(req, 0);
-                if (!h.plausible()) {
-                    LOG.warn("closing {}: not a Modbus header {}", s.getRemoteSocketAddress(), h);
-                    return;
+                int got = readFully(in, req, 0, Modbus.MBAP_LENGTH);
+                if (got < Modbus.MBAP_LENGTH) {
+                    how = got == 0 ? "client closed" : truncated(c);
+                    break;
                 }
-                readFully(in, req, Modbus.MBAP_LENGTH, h.pduLength());
-                long t0 = System.nanoTime();
-                stats.request();
-                int n = image.handle(h.unitId(), req, Modbus.MBAP_LENGTH, h.pduLength(), resp, Modbus.MBAP_LENGTH);
-                if (n < 0) {
-                    n = ServedImage.exception(resp, Modbus.MBAP_LENGTH, req[Modbus.MBAP_LENGTH] & 0xFF,
-                            Modbus.EX_GATEWAY_TARGET_NO_RESPONSE);
+                if (!Mbap.plausible(req, 0)) {
+                    how = "bad header";
+                    c.stats.badFrame();
+                    badHeader.report("closing {} from {}: not a Modbus header {}", c.stats.name(), c.peer, Mbap.decode(req, 0));
+                    break;
                 }
-                if ((resp[Modbus.MBAP_LENGTH] & Modbus.EXCEPTION_FLAG) != 0) {
-                    stats.exception(resp[Modbus.MBAP_LENGTH + 1]);
-                } else {
-                    stats.ok(System.nanoTime() - t0);
+                int len = Mbap.pduLength(req, 0);
+                if (readFully(in, req, Modbus.MBAP_LENGTH, len) < len) {
+                    how = truncated(c);
+                    break;
                 }
-                Mbap.encode(resp, 0, h.transactionId(), h.unitId(), n);
-                out.write(resp, 0, Modbus.MBAP_LENGTH + n);
+                int n = TcpAdu.answer(image, req, resp, c.stats);
+                c.lastRequestNs = System.nanoTime();
+                out.write(resp, 0, n);
                 out.flush();
             }
-        } catch (EOFException e) {
-            LOG.debug("client {} closed", s.getRemoteSocketAddress());
         } catch (IOException e) {
-            if (open) {
-                stats.ioError();
-                LOG.debug("connection {} ended: {}", s.getRemoteSocketAddress(), e.toString());
+            how = "I/O error";
+            if (open && !c.closedByServer()) {
+                c.stats.ioError();
+                LOG.debug("{} ended: {}", c.stats.name(), e.toString());
             }
-        } finally {
-            clients.remove(s);
         }
+        connections.ended(c, System.nanoTime(), how);
     }
 
-    private static void readFully(InputStream in, byte[] b, int off, int len) throws IOException {
+    /** The client closed after part of a frame: a bad frame. */
+    private static String truncated(Connections.Conn c) {
+        c.stats.badFrame();
+        return "client closed inside a frame";
+    }
+
+    /** Read up to {@code len} bytes, stopping early only at the end of the stream; returns the count read. */
+    private static int readFully(InputStream in, byte[] b, int off, int len) throws IOException {
         int done = 0;
         while (done < len) {
             int n = in.read(b, off + done, len - done);
             if (n < 0) {
-                throw new EOFException();
+                return done;
             }
             done += n;
+        }
+        return done;
+    }
+
+    private static void closeQuietly(Socket s) {
+        try {
+            s.close();
+        } catch (IOException e) {
+            LOG.debug("close: {}", e.toString());
         }
     }
 
@@ -126,17 +186,18 @@ final class TcpServer implements AutoCloseable {
         } catch (IOException e) {
             LOG.debug("close listener: {}", e.toString());
         }
-        for (Socket s : clients) {
-            try {
-                s.close();
-            } catch (IOException e) {
-                LOG.debug("close client: {}", e.toString());
-            }
-        }
         try {
             acceptor.join(2000);
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
         }
+        connections.closeAll(System.nanoTime());
+        pool.shutdown();
+        try {
+            pool.awaitTermination(2, TimeUnit.SECONDS);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+        }
+        problems.flush();
     }
 }

@@ -5,22 +5,35 @@ import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayDeque;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.LinkedHashSet;
+import java.util.List;
 import java.util.Locale;
+import java.util.Set;
 
 /**
  * Counters of one Modbus link (client or server side): requests, good answers, exception answers
  * by code, timeouts, I/O and CRC errors, reconnects, and round-trip (or service) times of the most
- * recent {@link #WINDOW} requests for percentiles. Thread-safe; recording allocates nothing.
+ * recent requests for percentiles. A server's statistics also count the connections it accepted,
+ * closed for idling or evicted to admit a newer one, and frames it refused at the framing level;
+ * each TCP connection has its own child statistics ({@link #connection}) that add into the
+ * server's. Thread-safe; recording allocates nothing.
  */
 public final class LinkStatistics {
-    /** Number of recent round-trip samples kept for percentiles. */
+    /** Number of recent round-trip samples kept for percentiles of a link. */
     public static final int WINDOW = 1 << 16;
+    /** Samples kept per server connection: percentiles of its last 1024 requests. */
+    public static final int CONNECTION_WINDOW = 1 << 10;
+    /** Closed connections kept for the CSV, newest first out; older ones stay in the server's totals. */
+    public static final int CLOSED_CONNECTIONS_KEPT = 100;
     /** Exception codes with their own CSV column; others are summed in ex_other. */
     private static final int[] CODES = {1, 2, 3, 4, 6, 11};
 
     private final String name;
-    private final long[] rttNs = new long[WINDOW];
+    private final LinkStatistics parent;
+    private final long[] rttNs;
     private long samples;
     private long maxNs;
     private long requests;
@@ -29,37 +42,212 @@ public final class LinkStatistics {
     private long ioErrors;
     private long crcErrors;
     private long reconnects;
+    private long connections;
+    private long evicted;
+    private long idleClosed;
+    private long badFrames;
     private final long[] exceptions = new long[256];
+    // connection rows only
+    private final String peer;
+    private final double openedS;
+    private double closedS = Double.NaN;
+    private String end = "";
+    // server side: open connections and the most recent closed ones
+    private final Set<LinkStatistics> open = new LinkedHashSet<>();
+    private final ArrayDeque<Snapshot> closed = new ArrayDeque<>();
 
-    public LinkStatistics(String name) { this.name = name; }
+    public LinkStatistics(String name) { this(name, WINDOW, null, "", Double.NaN); }
+
+    private LinkStatistics(String name, int window, LinkStatistics parent, String peer, double openedS) {
+        this.name = name;
+        this.rttNs = new long[window];
+        this.parent = parent;
+        this.peer = peer;
+        this.openedS = openedS;
+    }
 
     public String name() { return name; }
 
-    public synchronized void request() { requests++; }
+    /**
+     * Statistics of a new server connection from {@code peer}, opened {@code openedS} seconds after
+     * the server started; counted here as an accepted connection until {@link #closeConnection}.
+     */
+    public LinkStatistics connection(String connectionName, String peerAddress, double openedAtS) {
+        LinkStatistics c = new LinkStatistics(connectionName, CONNECTION_WINDOW, this, peerAddress, openedAtS);
+        c.connections = 1;
+        synchronized (this) {
+            connections++;
+            open.add(c);
+        }
+        return c;
+    }
+
+    /**
+     * This connection ended {@code closedAtS} seconds after the server started, for the reason
+     * {@code how} (for example "client closed", "idle timeout", "evicted", "bad header"). Its row
+     * is kept for the CSV among the {@link #CLOSED_CONNECTIONS_KEPT} most recent.
+     */
+    public void closeConnection(double closedAtS, String how) {
+        if (parent == null) {
+            throw new IllegalStateException(name + " is not a connection");
+        }
+        Snapshot last;
+        synchronized (this) {
+            if (!Double.isNaN(closedS)) {
+                return;
+            }
+            closedS = closedAtS;
+            end = how;
+            last = snapshot();
+        }
+        synchronized (parent) {
+            parent.open.remove(this);
+            parent.closed.addLast(last);
+            if (parent.closed.size() > CLOSED_CONNECTIONS_KEPT) {
+                parent.closed.removeFirst();
+            }
+        }
+    }
+
+    /** Snapshots of the open connections and of the most recent closed ones, oldest first. */
+    public List<Snapshot> connections() {
+        List<LinkStatistics> live;
+        List<Snapshot> out;
+        synchronized (this) {
+            live = new ArrayList<>(open);
+            out = new ArrayList<>(closed);
+        }
+        for (LinkStatistics c : live) {
+            out.add(c.snapshot());
+        }
+        out.sort((a, b) -> Double.compare(a.openedS(), b.openedS()));
+        return out;
+    }
+
+    public void request() {
+        synchronized (this) {
+            requests++;
+        }
+        if (parent != null) {
+            parent.request();
+        }
+    }
 
     /** A good answer after {@code rttNs} nanoseconds. */
-    public synchronized void ok(long roundTripNs) {
-        ok++;
-        rttNs[(int) (samples++ & (WINDOW - 1))] = roundTripNs;
-        if (roundTripNs > maxNs) {
-            maxNs = roundTripNs;
+    public void ok(long roundTripNs) {
+        synchronized (this) {
+            ok++;
+            rttNs[(int) (samples++ & (rttNs.length - 1))] = roundTripNs;
+            if (roundTripNs > maxNs) {
+                maxNs = roundTripNs;
+            }
+        }
+        if (parent != null) {
+            parent.ok(roundTripNs);
         }
     }
 
     /** An exception answer with its code (0..255). */
-    public synchronized void exception(int code) { exceptions[code & 0xFF]++; }
+    public void exception(int code) {
+        synchronized (this) {
+            exceptions[code & 0xFF]++;
+        }
+        if (parent != null) {
+            parent.exception(code);
+        }
+    }
 
-    public synchronized void timeout() { timeouts++; }
+    /**
+     * One request served by a server: counted as a request and, when {@code exceptionCode} is 0, as
+     * a good answer after {@code serviceNs}, else as an exception answer of that code.
+     */
+    public void served(int exceptionCode, long serviceNs) {
+        synchronized (this) {
+            requests++;
+            if (exceptionCode == 0) {
+                ok++;
+                rttNs[(int) (samples++ & (rttNs.length - 1))] = serviceNs;
+                if (serviceNs > maxNs) {
+                    maxNs = serviceNs;
+                }
+            } else {
+                exceptions[exceptionCode & 0xFF]++;
+            }
+        }
+        if (parent != null) {
+            parent.served(exceptionCode, serviceNs);
+        }
+    }
 
-    public synchronized void ioError() { ioErrors++; }
+    public void timeout() {
+        synchronized (this) {
+            timeouts++;
+        }
+        if (parent != null) {
+            parent.timeout();
+        }
+    }
 
-    public synchronized void crcError() { crcErrors++; }
+    public void ioError() {
+        synchronized (this) {
+            ioErrors++;
+        }
+        if (parent != null) {
+            parent.ioError();
+        }
+    }
 
-    public synchronized void reconnect() { reconnects++; }
+    public void crcError() {
+        synchronized (this) {
+            crcErrors++;
+        }
+        if (parent != null) {
+            parent.crcError();
+        }
+    }
+
+    public void reconnect() {
+        synchronized (this) {
+            reconnects++;
+        }
+        if (parent != null) {
+            parent.reconnect();
+        }
+    }
+
+    /** A frame refused at the framing level (a TCP header that cannot start a Modbus ADU; an RTU frame dropped or overlong). */
+    public void badFrame() {
+        synchronized (this) {
+            badFrames++;
+        }
+        if (parent != null) {
+            parent.badFrame();
+        }
+    }
+
+    /** A server connection closed because it sent no whole request within the idle timeout. */
+    public void idleClosed() {
+        synchronized (this) {
+            idleClosed++;
+        }
+        if (parent != null) {
+            parent.idleClosed();
+        }
+    }
+
+    /** A server connection closed to admit a newer one while the server was full. */
+    public void evicted() {
+        synchronized (this) {
+            evicted++;
+        }
+        if (parent != null) {
+            parent.evicted();
+        }
+    }
 
     /** A consistent copy of the counters. */
     public synchronized Snapshot snapshot() {
-        int n = (int) Math.min(samples, WINDOW);
+        int n = (int) Math.min(samples, rttNs.length);
         long[] copy = Arrays.copyOf(rttNs, n);
         Arrays.sort(copy);
         long exOther = 0;
@@ -73,7 +261,8 @@ public final class LinkStatistics {
             }
         }
         return new Snapshot(name, requests, ok, timeouts, ioErrors, crcErrors, reconnects, ex, exOther,
-                pct(copy, 0.50), pct(copy, 0.99), maxNs / 1e6, n);
+                pct(copy, 0.50), pct(copy, 0.99), maxNs / 1e6, n, connections, evicted, idleClosed, badFrames,
+                peer, openedS, closedS, parent == null ? "" : Double.isNaN(closedS) ? "open" : end);
     }
 
     private static int indexOf(int code) {
@@ -94,10 +283,16 @@ public final class LinkStatistics {
         return sorted[Math.max(0, Math.min(sorted.length - 1, rank - 1))] / 1e6;
     }
 
-    /** Counters at one moment. Times in milliseconds. */
+    /**
+     * Counters at one moment. Times in milliseconds; {@code openedS}/{@code closedS} in seconds
+     * after the server started (NaN when not a connection, or still open); {@code end} is how a
+     * connection ended ("open" while it lasts, empty for a link).
+     */
     public record Snapshot(String name, long requests, long ok, long timeouts, long ioErrors, long crcErrors,
                            long reconnects, long[] exceptionsByCode, long exceptionsOther,
-                           double p50Ms, double p99Ms, double maxMs, int windowSamples) {
+                           double p50Ms, double p99Ms, double maxMs, int windowSamples,
+                           long connections, long evicted, long idleClosed, long badFrames,
+                           String peer, double openedS, double closedS, String end) {
 
         /** Exception answers of one code (1, 2, 3, 4, 6 or 11). */
         public long exceptions(int code) {
@@ -116,11 +311,16 @@ public final class LinkStatistics {
         /** One line for the console. */
         @Override
         public String toString() {
-            return String.format(Locale.ROOT,
+            String s = String.format(Locale.ROOT,
                     "%s: %d requests, %d ok, %d timeouts, %d exceptions, %d io errors, %d crc errors, "
                             + "%d reconnects, rtt p50 %.3f ms p99 %.3f ms max %.3f ms",
                     name, requests, ok, timeouts, errors() - timeouts - ioErrors - crcErrors, ioErrors, crcErrors,
                     reconnects, p50Ms, p99Ms, maxMs);
+            if (connections > 0 || badFrames > 0) {
+                s += String.format(Locale.ROOT, "; %d connections, %d evicted, %d idle closed, %d bad frames",
+                        connections, evicted, idleClosed, badFrames);
+            }
+            return s;
         }
 
         String csvRow() {
@@ -132,6 +332,11 @@ public final class LinkStatistics {
             }
             sb.append(',').append(exceptionsOther);
             sb.append(String.format(Locale.ROOT, ",%.4f,%.4f,%.4f,%d", p50Ms, p99Ms, maxMs, windowSamples));
+            sb.append(',').append(connections).append(',').append(evicted).append(',').append(idleClosed)
+                    .append(',').append(badFrames).append(',').append(peer)
+                    .append(',').append(Double.isNaN(openedS) ? "" : String.format(Locale.ROOT, "%.3f", openedS))
+                    .append(',').append(Double.isNaN(closedS) ? "" : String.format(Locale.ROOT, "%.3f", closedS))
+                    .append(',').append(end);
             return sb.toString();
         }
     }
@@ -142,10 +347,14 @@ public final class LinkStatistics {
         for (int c : CODES) {
             sb.append(String.format(Locale.ROOT, ",ex_%02d", c));
         }
-        return sb.append(",ex_other,rtt_p50_ms,rtt_p99_ms,rtt_max_ms,rtt_samples").toString();
+        return sb.append(",ex_other,rtt_p50_ms,rtt_p99_ms,rtt_max_ms,rtt_samples")
+                .append(",connections,evicted,idle_closed,bad_frames,peer,opened_s,closed_s,end").toString();
     }
 
-    /** Write one CSV file (header + one row per link), e.g. {@code link-stats.csv} of a run. */
+    /**
+     * Write one CSV file (header, then per link one row followed by a row for each of its server
+     * connections, open or recently closed), e.g. {@code link-stats.csv} of a run.
+     */
     public static void writeCsv(Path file, LinkStatistics... links) throws IOException {
         try (Writer w = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
             w.write(csvHeader());
@@ -153,6 +362,10 @@ public final class LinkStatistics {
             for (LinkStatistics l : links) {
                 w.write(l.snapshot().csvRow());
                 w.write('\n');
+                for (Snapshot c : l.connections()) {
+                    w.write(c.csvRow());
+                    w.write('\n');
+                }
             }
         }
     }
