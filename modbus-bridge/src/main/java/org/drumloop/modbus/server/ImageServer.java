@@ -46,10 +46,6 @@ public final class ImageServer implements AutoCloseable {
     public static ImageServer tcp(ChannelMap map, TcpEndpoint endpoint, ServerLimits limits) throws IOException {
         ProblemLog problems = new ProblemLog(LOG);
         ServedImage img = new ServedImage(map, problems);
-        if (Boolean.getBoolean("drumloop.modbus.nio")) {
-            NioTcpServer t = new NioTcpServer(img, limits, endpoint.host(), endpoint.port(), problems);
-            return new ImageServer(img, t.statistics(), t, t.port());
-        }
         TcpServer t = new TcpServer(img, limits, endpoint.host(), endpoint.port(), problems);
         return new ImageServer(img, t.statistics(), t, t.port());
     }
