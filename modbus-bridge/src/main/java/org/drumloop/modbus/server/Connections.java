@@ -23,6 +23,7 @@ final class Connections {
 
     /** One open connection. */
     static final class Conn {
+        final int id;
         final String peer;
         final LinkStatistics stats;
         final long openedNs;
@@ -31,7 +32,8 @@ final class Connections {
         volatile long lastRequestNs;
         private volatile String end;
 
-        Conn(String peer, LinkStatistics stats, long openedNs, Closer closer) {
+        Conn(int id, String peer, LinkStatistics stats, long openedNs, Closer closer) {
+            this.id = id;
             this.peer = peer;
             this.stats = stats;
             this.openedNs = openedNs;
@@ -49,7 +51,7 @@ final class Connections {
 
     private final ServerLimits limits;
     private final LinkStatistics stats;
-    private final String name;
+    final String name;
     private final long startNs;
     private final long idleNs;
     private final List<Conn> open = new ArrayList<>();
@@ -80,14 +82,14 @@ final class Connections {
                 open.remove(victim);
                 victim.end = "evicted";
             }
-            c = new Conn(peer, stats.connection(name + " connection " + (++next), peer, secondsSinceStart(nowNs)),
-                    nowNs, closer);
+            int id = ++next;
+            c = new Conn(id, peer, stats.connection(name + " connection " + id, peer, secondsSinceStart(nowNs)), nowNs, closer);
             open.add(c);
         }
         if (victim != null) {
             victim.stats.evicted();
-            evictedLog.report("{} full ({} connections): closed {} from {}, idle {} s, to admit {}", name,
-                    limits.maxConnections(), victim.stats.name(), victim.peer, seconds(nowNs - victim.idleSinceNs()), peer);
+            evictedLog.report("{}: all {} connections in use; closed connection {} from {}, idle {} s, to admit {}", name,
+                    limits.maxConnections(), victim.id, victim.peer, seconds(nowNs - victim.idleSinceNs()), peer);
             victim.closer.close();
             finish(victim, nowNs, "evicted");
         }
@@ -133,7 +135,7 @@ final class Connections {
         if (idle != null) {
             for (Conn c : idle) {
                 c.stats.idleClosed();
-                idleLog.report("{}: closed {} from {} after {} s without a request", name, c.stats.name(), c.peer,
+                idleLog.report("{}: closed connection {} from {} after {} s without a request", name, c.id, c.peer,
                         seconds(nowNs - c.idleSinceNs()));
                 c.closer.close();
                 finish(c, nowNs, "idle timeout");

@@ -54,7 +54,7 @@ final class TcpServer implements AutoCloseable {
         this.acceptFailed = problems.kind("failed accepts", Level.WARN);
         listener = new ServerSocket();
         listener.setReuseAddress(true);
-        listener.bind(new InetSocketAddress(InetAddress.getByName(host), port), 50);
+        listener.bind(new InetSocketAddress(InetAddress.getByName(host), port), 256);
         String name = "server tcp " + new TcpEndpoint(listener.getInetAddress().getHostAddress(), listener.getLocalPort());
         stats = new LinkStatistics(name);
         connections = new Connections(limits, stats, problems, name, System.nanoTime());
@@ -128,7 +128,9 @@ final class TcpServer implements AutoCloseable {
                 if (!Mbap.plausible(req, 0)) {
                     how = "bad header";
                     c.stats.badFrame();
-                    badHeader.report("closing {} from {}: not a Modbus header {}", c.stats.name(), c.peer, Mbap.decode(req, 0));
+                    Mbap h = Mbap.decode(req, 0);
+                    badHeader.report("{}: closed connection {} from {}: not a Modbus header (protocol id {}, length {})",
+                            connections.name, c.id, c.peer, h.protocolId(), h.length());
                     break;
                 }
                 int len = Mbap.pduLength(req, 0);

@@ -26,7 +26,10 @@ class ServedImageTest {
             + "eng_lo,eng_hi,eng_unit,clamp,fault_low,fault_high,stale_after_s,description";
     private static final double EXACT_TOL = 1e-9;
 
-    static ServedImage image() {
+    static ServedImage image() { return new ServedImage(map()); }
+
+    /** Inputs in input registers, a float in holding registers, outputs in holding registers and coils, unit 1. */
+    static ChannelMap map() {
         List<ConfigException> problems = new ArrayList<>();
         ChannelMap map = ChannelMap.parse("t.csv", List.of(HEADER,
                 "level_dp_a,to_controller,input_register,1,0,int16,,0,27648,4,20,mA,,,,1,",
@@ -38,7 +41,7 @@ class ServedImageTest {
                 "pump_a_run,from_controller,coil,1,0,bool,,,,,,,,,,,",
                 "fuel_cutoff,from_controller,coil,1,1,bool,,,,,,,,,,,"), problems);
         assertEquals(List.of(), problems);
-        return new ServedImage(map);
+        return map;
     }
 
     private static byte[] pdu(int... b) {
