@@ -22,6 +22,7 @@ import org.drumloop.modbus.TcpEndpoint;
 import org.drumloop.modbus.client.RigClient;
 import org.drumloop.modbus.map.ChannelMap;
 import org.drumloop.modbus.server.ImageServer;
+import org.drumloop.modbus.server.ServerLimits;
 import org.drumloop.modbus.stats.LinkStatistics;
 import org.drumloop.plant.Plant;
 import org.drumloop.plant.PlantConfig;
@@ -47,9 +48,16 @@ public final class Loopback {
      * @param seed plant noise seed
      * @param lockstep true for the lockstep pacing, false for real time
      * @param out folder for trend.csv, events.csv and link-stats.csv, or null
+     * @param limits connection limit and idle timeout of the plant's Modbus server
      */
     public record Options(double durationS, double loadFrac, double stepAtS, double stepToFrac, long seed,
-                          boolean lockstep, Path out) {}
+                          boolean lockstep, Path out, ServerLimits limits) {
+        /** With the server's default limits. */
+        public Options(double durationS, double loadFrac, double stepAtS, double stepToFrac, long seed,
+                       boolean lockstep, Path out) {
+            this(durationS, loadFrac, stepAtS, stepToFrac, seed, lockstep, out, ServerLimits.DEFAULT);
+        }
+    }
 
     /**
      * @param scans firmware scans run
@@ -81,7 +89,7 @@ public final class Loopback {
             Files.createDirectories(o.out());
         }
         RigClient.Options linkOpts = new RigClient.Options(Math.min(0.05, dtS / 2), 0.5, 1, 0.1, 2.0);
-        try (ImageServer server = ImageServer.tcp(map, new TcpEndpoint("127.0.0.1", 0));
+        try (ImageServer server = ImageServer.tcp(map, new TcpEndpoint("127.0.0.1", 0), o.limits());
              RigClient client = RigClient.tcp(map, new TcpEndpoint("127.0.0.1", server.port()), linkOpts);
              Trend trend = new Trend(o.out() == null ? null : o.out().resolve("trend.csv"), fwConfig.levelSetpointM(), o.stepAtS());
              Events events = new Events(o.out() == null ? null : o.out().resolve("events.csv"), progress)) {

@@ -17,6 +17,7 @@ import org.drumloop.plant.PlantFile;
 
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 
 /** {@code drumloop loopback}: plant and firmware in one process, joined by real Modbus TCP on 127.0.0.1. */
@@ -50,14 +51,17 @@ public final class LoopbackCommand implements Callable<Integer> {
     @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "plant noise seed (default ${DEFAULT-VALUE})")
     long seed;
 
-    @Option(names = "--load", paramLabel = "PCT", defaultValue = "60", description = "steam demand at the start [%] (default ${DEFAULT-VALUE})")
+    @Option(names = "--load", paramLabel = "PCT", defaultValue = "60", description = "steam demand at the start [%%] (default ${DEFAULT-VALUE})")
     double loadPct;
 
-    @Option(names = "--step-load", paramLabel = "PCT", description = "steam demand after a load step [%]")
+    @Option(names = "--step-load", paramLabel = "PCT", description = "steam demand after a load step [%%]")
     Double stepLoadPct;
 
     @Option(names = "--step-at", paramLabel = "S", defaultValue = "20", description = "time of the load step [s] (default ${DEFAULT-VALUE})")
     double stepAtS;
+
+    @Mixin
+    ServerOptions limits = new ServerOptions();
 
     @Option(names = "--speed", paramLabel = "1|max", defaultValue = "1",
             description = "1: real time, plant and client on their own threads (default); max: lockstep, as fast as the link allows")
@@ -80,6 +84,10 @@ public final class LoopbackCommand implements Callable<Integer> {
             err.println("--duration must be positive, --load and --step-load 0..120 %");
             return ExitCode.BAD_INPUT;
         }
+        if (limits.problem() != null) {
+            err.println(limits.problem());
+            return ExitCode.BAD_INPUT;
+        }
         ChannelMap m = HilFiles.map(map, HilFiles.CONTROL_SIGNALS, err);
         Path plantPath = HilFiles.find(plant, "plants", ".plant", err);
         Path tuningPath = HilFiles.find(tuning, "tuning", ".tuning", err);
@@ -98,7 +106,7 @@ public final class LoopbackCommand implements Callable<Integer> {
         Path dir = out != null ? out : Paths.get("out", "loopback");
         Loopback.Options opts = new Loopback.Options(durationS, loadPct / 100.0,
                 stepLoadPct == null ? Double.POSITIVE_INFINITY : stepAtS, stepLoadPct == null ? loadPct / 100.0 : stepLoadPct / 100.0,
-                seed, lockstep, dir);
+                seed, lockstep, dir, limits.limits());
         o.println("loopback: " + m.file() + " over Modbus TCP on 127.0.0.1, " + (lockstep ? "lockstep" : "real time")
                 + ", " + fmt(durationS) + " s");
         try {

@@ -53,13 +53,16 @@ public final class ServePlantCommand implements Callable<Integer> {
     @Mixin
     LinkOptions link = new LinkOptions();
 
+    @Mixin
+    ServerOptions limits = new ServerOptions();
+
     @Option(names = "--plant", paramLabel = "FILE", defaultValue = "aux-boiler", description = "plant file (default ${DEFAULT-VALUE})")
     String plant;
 
     @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "plant noise seed (default ${DEFAULT-VALUE})")
     long seed;
 
-    @Option(names = "--load", paramLabel = "PCT", defaultValue = "60", description = "steam demand [%] (default ${DEFAULT-VALUE})")
+    @Option(names = "--load", paramLabel = "PCT", defaultValue = "60", description = "steam demand [%%] (default ${DEFAULT-VALUE})")
     double loadPct;
 
     @Option(names = "--duration", paramLabel = "S", defaultValue = "0", description = "run time [s]; 0 runs until stopped (default)")
@@ -71,11 +74,26 @@ public final class ServePlantCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", description = "write link-stats.csv here at the end")
     Path out;
 
+    private boolean given(String... names) {
+        for (String n : names) {
+            if (spec.commandLine().getParseResult().hasMatchedOption(n)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     @Override
     public Integer call() {
         PrintWriter o = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         String bad = link.problem(DEFAULT_TCP);
+        if (bad == null && link.isRtu() && given(ServerOptions.NAMES)) {
+            bad = "--max-connections and --idle-timeout are for Modbus TCP, not --rtu";
+        }
+        if (bad == null) {
+            bad = limits.problem();
+        }
         if (bad != null) {
             err.println(bad);
             return ExitCode.BAD_INPUT;
@@ -106,13 +124,14 @@ public final class ServePlantCommand implements Callable<Integer> {
         p.initSteadyState(loadPct / 100.0);
         ImageServer server;
         try {
-            server = link.isRtu() ? ImageServer.rtu(m, link.serial()) : ImageServer.tcp(m, link.tcp(DEFAULT_TCP));
+            server = link.isRtu() ? ImageServer.rtu(m, link.serial()) : ImageServer.tcp(m, link.tcp(DEFAULT_TCP), limits.limits());
         } catch (IOException e) {
             err.println("cannot open the Modbus link: " + e.getMessage());
             return ExitCode.IO_ERROR;
         }
         o.println("serving " + plantPath.getFileName() + " with map " + m.file() + " on "
-                + (link.isRtu() ? link.serial().device() + " " + link.baud + " baud" : "tcp " + link.tcp(DEFAULT_TCP).host() + ":" + server.port())
+                + (link.isRtu() ? link.serial().device() + " " + link.baud + " baud" : "tcp " + link.tcp(DEFAULT_TCP).host() + ":" + server.port()
+                        + " (at most " + limits.maxConnections + " connections, idle timeout " + limits.idleTimeoutS + " s)")
                 + (durationS > 0 ? " for " + durationS + " s" : " until stopped (Ctrl-C)"));
         o.println("A test bench, not a safety system.");
         o.flush();

@@ -11,6 +11,7 @@ import java.util.concurrent.CountDownLatch;
 import org.drumloop.bench.ConfigResolver;
 import org.drumloop.bench.ExitCode;
 import org.drumloop.bench.hil.LinkOptions;
+import org.drumloop.bench.hil.ServerOptions;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.scenario.ScenarioParser;
 import org.drumloop.core.FirmwareConfig;
@@ -91,6 +92,9 @@ public final class LiveCommand implements Callable<Integer> {
     @Mixin
     LinkOptions link = new LinkOptions();
 
+    @Mixin
+    ServerOptions limits = new ServerOptions();
+
     /** Printed first with --rig: the same caution as drive-rig. */
     static final String RIG_BANNER = String.join(System.lineSeparator(),
             "*****************************************************************************",
@@ -115,6 +119,14 @@ public final class LiveCommand implements Callable<Integer> {
             }
         } else if (given("--tcp", "--rtu", "--baud", "--parity", "--stop", "--unit")) {
             err.println("--tcp, --rtu, --baud, --parity, --stop and --unit are for --rig");
+            return ExitCode.BAD_INPUT;
+        }
+        if (!loopback && given(ServerOptions.NAMES)) {
+            err.println("--max-connections and --idle-timeout are for --loopback, where the plant is served over Modbus TCP");
+            return ExitCode.BAD_INPUT;
+        }
+        if (limits.problem() != null) {
+            err.println(limits.problem());
             return ExitCode.BAD_INPUT;
         }
         if (!(speed >= LiveServer.SPEED_MIN && speed <= LiveServer.SPEED_MAX)) {
@@ -285,6 +297,6 @@ public final class LiveCommand implements Callable<Integer> {
         if (m == null) {
             throw new ConfigException(map, 0, "--map", "no such channel map file or shipped map name");
         }
-        return new LoopbackLiveSession(sc, ChannelMap.load(m));
+        return new LoopbackLiveSession(sc, ChannelMap.load(m), limits.limits());
     }
 }

@@ -20,6 +20,7 @@ import org.drumloop.modbus.TcpEndpoint;
 import org.drumloop.modbus.client.RigClient;
 import org.drumloop.modbus.map.ChannelMap;
 import org.drumloop.modbus.server.ImageServer;
+import org.drumloop.modbus.server.ServerLimits;
 import org.drumloop.plant.Plant;
 import org.drumloop.plant.PlantConfig;
 
@@ -59,6 +60,11 @@ public final class LoopbackLiveSession implements LiveSession, AutoCloseable {
     private double pressureSetpointPa;
 
     public LoopbackLiveSession(Scenario sc, ChannelMap map) throws ConfigException, IOException {
+        this(sc, map, ServerLimits.DEFAULT);
+    }
+
+    /** As above, the plant's Modbus server with {@code limits}. */
+    public LoopbackLiveSession(Scenario sc, ChannelMap map, ServerLimits limits) throws ConfigException, IOException {
         this.scenario = sc;
         ScenarioRunner.Setup setup = ScenarioRunner.setup(sc);
         this.refs = SimLiveSession.references(sc, setup);
@@ -74,7 +80,7 @@ public final class LoopbackLiveSession implements LiveSession, AutoCloseable {
         ScenarioRunner.bind(sc, interlocks);
         this.plantIo = new PlantIo(plant);
         this.dtS = setup.tuning().scanPeriodS();
-        this.server = ImageServer.tcp(map, new TcpEndpoint("127.0.0.1", 0));
+        this.server = ImageServer.tcp(map, new TcpEndpoint("127.0.0.1", 0), limits);
         RigClient c;
         try {
             c = RigClient.tcp(map, new TcpEndpoint("127.0.0.1", server.port()),

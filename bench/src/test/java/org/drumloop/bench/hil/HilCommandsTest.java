@@ -50,13 +50,36 @@ class HilCommandsTest {
     void loopbackRunsTheWholeChainAndWritesItsRecords() throws Exception {
         Run r = new Run();
         int code = r.exec("loopback", "--speed", "max", "--duration", "20", "--map", MAP.toString(),
-                "--plant", PLANT.toString(), "--tuning", TUNING.toString(), "--out", dir.toString());
+                "--plant", PLANT.toString(), "--tuning", TUNING.toString(), "--out", dir.toString(),
+                "--max-connections", "2", "--idle-timeout", "30");
         assertEquals(ExitCode.OK, code, r.err.toString());
         // 20 s at the default tuning's 100 ms scan period = 200 scans (tuning file, scan_period)
         assertTrue(r.out.toString().contains("scans 200,"), r.out.toString());
         assertTrue(Files.exists(dir.resolve("trend.csv")));
         assertTrue(Files.exists(dir.resolve("events.csv")));
-        assertEquals(3, Files.readAllLines(dir.resolve("link-stats.csv")).size());
+        // header, client, server, and the server's one connection (from the client)
+        List<String> stats = Files.readAllLines(dir.resolve("link-stats.csv"));
+        assertEquals(4, stats.size(), stats.toString());
+        // the summary and the records name the port the server was bound to, not the 0 it was asked for
+        Matcher m = Pattern.compile("server tcp 127\\.0\\.0\\.1:(\\d+):").matcher(r.out.toString());
+        assertTrue(m.find(), r.out.toString());
+        assertTrue(Integer.parseInt(m.group(1)) > 0, r.out.toString());
+        assertTrue(stats.get(2).startsWith("server tcp 127.0.0.1:" + m.group(1) + ","), stats.get(2));
+        assertTrue(stats.get(3).startsWith("server tcp 127.0.0.1:" + m.group(1) + " connection 1,"), stats.get(3));
+    }
+
+    @Test
+    void serverLimitsOutOfRangeOrOnASerialLineAreRefused() {
+        Run r = new Run();
+        assertEquals(ExitCode.BAD_INPUT, r.exec("serve-plant", "--map", MAP.toString(), "--max-connections", "0"));
+        assertTrue(r.err.toString().contains("--max-connections must be 1..256"), r.err.toString());
+        Run idle = new Run();
+        assertEquals(ExitCode.BAD_INPUT, idle.exec("loopback", "--idle-timeout", "0"));
+        assertTrue(idle.err.toString().contains("--idle-timeout must be"), idle.err.toString());
+        Run rtu = new Run();
+        assertEquals(ExitCode.BAD_INPUT, rtu.exec("serve-plant", "--map", MAP.toString(), "--rtu", "/dev/null",
+                "--max-connections", "4"));
+        assertTrue(rtu.err.toString().contains("for Modbus TCP, not --rtu"), rtu.err.toString());
     }
 
     @Test

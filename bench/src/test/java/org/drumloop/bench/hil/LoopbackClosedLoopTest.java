@@ -63,7 +63,7 @@ class LoopbackClosedLoopTest {
         assertTrue(r.client().ok() > 0);
         List<String> trend = Files.readAllLines(dir.resolve("trend.csv"));
         assertTrue(trend.size() > 1000, "one row per scan");
-        assertTrue(Files.readAllLines(dir.resolve("link-stats.csv")).size() == 3, "header + client + server");
+        assertEquals(4, Files.readAllLines(dir.resolve("link-stats.csv")).size(), "header + client + server + its one connection");
     }
 
     /** Peak |level - setpoint| after the step with the same plant, tuning and seed, no Modbus. */

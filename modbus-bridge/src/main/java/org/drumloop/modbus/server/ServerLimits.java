@@ -14,7 +14,7 @@ public record ServerLimits(int maxConnections, double idleTimeoutS) {
     /** Default connections at once: as many as a PLC's Modbus TCP port typically allows, a handful (common practice). */
     public static final int DEFAULT_MAX_CONNECTIONS = 8;
     /** Default idle timeout [s]. */
-    public static final double DEFAULT_IDLE_TIMEOUT_S = 60.0;
+    public static final int DEFAULT_IDLE_TIMEOUT_S = 60;
     /** The defaults. */
     public static final ServerLimits DEFAULT = new ServerLimits(DEFAULT_MAX_CONNECTIONS, DEFAULT_IDLE_TIMEOUT_S);
 
