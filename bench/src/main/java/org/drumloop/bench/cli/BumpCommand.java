@@ -34,7 +34,7 @@ public final class BumpCommand implements Callable<Integer> {
     @Option(names = "--input", required = true, paramLabel = "steam|feed|fuel", description = "input to step")
     String input;
 
-    @Option(names = "--step", required = true, paramLabel = "PERCENT", description = "step in % of the input's rating (may be negative)")
+    @Option(names = "--step", required = true, paramLabel = "PERCENT", description = "step in %% of the input's rating (may be negative)")
     double stepPercent;
 
     @Option(names = "--duration", required = true, paramLabel = "SECONDS", description = "length of the record [s]")
@@ -86,7 +86,7 @@ public final class BumpCommand implements Callable<Integer> {
         try (AtomicOutput a = new AtomicOutput(target)) {
             BumpTest.Result res = BumpTest.run(pc, in, stepPercent, durationS, seed, a.writer());
             a.commit();
-            o.printf(Locale.ROOT, "level: max %+.1f mm at %.1f s, min %+.1f mm at %.1f s, final %+.1f mm;"
+            o.printf(Locale.ROOT, "level: max %+.1f mm %.1f s after the step, min %+.1f mm %.1f s after the step, final %+.1f mm;"
                     + " final pressure %.3f barg%n", res.maxLevelM() * 1000, res.maxLevelTimeS(),
                     res.minLevelM() * 1000, res.minLevelTimeS(), res.finalLevelM() * 1000,
                     org.drumloop.core.io.EngUnit.BARG.fromSi(res.finalPressurePa()));

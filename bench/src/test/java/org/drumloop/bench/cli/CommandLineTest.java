@@ -140,6 +140,22 @@ class CommandLineTest {
         assertTrue(rows.get(0).startsWith("t[s],drum_level[mm]"));
         // one row per 100 ms over 60 s: 601 rows plus the header (plant-sim's BumpTest contract)
         assertEquals(602, rows.size());
+        // the summary counts the time of the peak from the step at 10 s: the trend's row of the
+        // highest level is at 10 s plus that time
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("max ([+-][0-9.]+) mm ([0-9.]+) s after the step")
+                .matcher(out.toString());
+        assertTrue(m.find(), out.toString());
+        double peakMm = Double.NEGATIVE_INFINITY;
+        double peakAtS = 0;
+        for (String row : rows.subList(1, rows.size())) {
+            String[] f = row.split(",");
+            if (Double.parseDouble(f[0]) >= 10.0 && Double.parseDouble(f[1]) > peakMm) {
+                peakMm = Double.parseDouble(f[1]);
+                peakAtS = Double.parseDouble(f[0]);
+            }
+        }
+        assertEquals(peakMm, Double.parseDouble(m.group(1)), 0.05, "printed to 0.1 mm");
+        assertEquals(peakAtS - 10.0, Double.parseDouble(m.group(2)), 0.05, "printed to 0.1 s");
         assertEquals(ExitCode.BAD_INPUT, drumloop("bump", "--input", "coal", "--step", "10", "--duration", "60",
                 "--out", tmp.toString()));
     }
