@@ -7,7 +7,6 @@ import com.ghgande.j2mod.modbus.ModbusException;
 import com.ghgande.j2mod.modbus.ModbusSlaveException;
 import com.ghgande.j2mod.modbus.facade.AbstractModbusMaster;
 import com.ghgande.j2mod.modbus.facade.ModbusSerialMaster;
-import com.ghgande.j2mod.modbus.facade.ModbusTCPMaster;
 import com.ghgande.j2mod.modbus.procimg.InputRegister;
 import com.ghgande.j2mod.modbus.procimg.Register;
 import com.ghgande.j2mod.modbus.procimg.SimpleRegister;
@@ -16,11 +15,11 @@ import com.ghgande.j2mod.modbus.util.SerialParameters;
 import com.fazecast.jSerialComm.SerialPort;
 
 import org.drumloop.modbus.SerialSettings;
-import org.drumloop.modbus.TcpEndpoint;
 import org.drumloop.modbus.map.Table;
 
 /**
- * {@link MasterLink} on the j2mod master facades (TCP and RTU). j2mod types stay in this class.
+ * {@link MasterLink} on j2mod's serial master facade (Modbus RTU; TCP uses our own
+ * {@link TcpMasterLink}). j2mod types stay in this class.
  * j2mod's own retries and reconnects are switched off: {@link RigClient} retries, reconnects
  * and counts, so the statistics see every attempt.
  */
@@ -33,11 +32,6 @@ public final class J2modLink implements MasterLink {
         this.master = master;
         this.name = name;
         master.setRetries(0);
-    }
-
-    /** A TCP master; {@code timeoutMs} bounds connect and each answer. */
-    public static J2modLink tcp(TcpEndpoint ep, int timeoutMs) {
-        return new J2modLink(new ModbusTCPMaster(ep.host(), ep.port(), timeoutMs, false, false), "tcp " + ep);
     }
 
     /** An RTU master on a serial line. */
