@@ -39,7 +39,7 @@ public final class LoopbackCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", description = "folder for the records (default out/loopback)")
     Path out;
 
-    @Option(names = "--map", paramLabel = "MAP", defaultValue = "aux-4-20ma", description = "channel map (default ${DEFAULT-VALUE})")
+    @Option(names = "--map", paramLabel = "MAP", defaultValue = "aux-microamp", description = "channel map (default ${DEFAULT-VALUE})")
     String map;
 
     @Option(names = "--plant", paramLabel = "FILE", defaultValue = "aux-boiler", description = "plant file (default ${DEFAULT-VALUE})")

@@ -80,8 +80,8 @@ public final class LiveCommand implements Callable<Integer> {
                     + " firmware as master through the rig client, scan by scan")
     boolean loopback;
 
-    @Option(names = "--map", paramLabel = "NAME|FILE", defaultValue = "aux-4-20ma",
-            description = "channel map for --loopback (default aux-4-20ma); required with --rig")
+    @Option(names = "--map", paramLabel = "NAME|FILE", defaultValue = "aux-microamp",
+            description = "channel map for --loopback (default aux-microamp); required with --rig")
     String map;
 
     @Option(names = "--rig",

@@ -27,7 +27,7 @@ class MapCalibrationTest {
     private static final double REL_TOL = 1e-9;
 
     @ParameterizedTest
-    @ValueSource(strings = {"aux-4-20ma.csv", "aux-float32.csv", "aux-mixed.csv", "aux-holding.csv"})
+    @ValueSource(strings = {"aux-microamp.csv", "aux-4-20ma.csv", "aux-float32.csv", "aux-mixed.csv", "aux-holding.csv"})
     void everyAnalogueInputCarriesItsTransmitterRange(String name) throws Exception {
         FirmwareConfig fc = FirmwareConfig.load(TUNING);
         Map<Signal, AnalogCal> cal = Map.of(

@@ -30,7 +30,7 @@ class ChannelMapTest {
     Path dir;
 
     @ParameterizedTest
-    @ValueSource(strings = {"aux-4-20ma.csv", "aux-float32.csv", "aux-mixed.csv"})
+    @ValueSource(strings = {"aux-microamp.csv", "aux-4-20ma.csv", "aux-float32.csv", "aux-mixed.csv"})
     void theShippedExampleMapsAreCleanAndComplete(String name) throws Exception {
         // the maps live in the project's config/maps, one level above this module
         Path p = Path.of("..", "config", "maps", name);
