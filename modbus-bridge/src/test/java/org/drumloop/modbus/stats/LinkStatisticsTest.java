@@ -54,4 +54,32 @@ class LinkStatisticsTest {
         assertTrue(lines.get(1).startsWith("client tcp 127.0.0.1:1502,0,0,1,0,0,1,0,2,0,0,0,1,1,"), lines.get(1));
         assertEquals(lines.get(0).split(",", -1).length, lines.get(1).split(",", -1).length);
     }
+
+    @Test
+    void connectionsAddIntoTheirServerAndTheMostRecentClosedOnesAreKept() {
+        LinkStatistics server = new LinkStatistics("server tcp 127.0.0.1:1502");
+        LinkStatistics first = server.connection("server tcp 127.0.0.1:1502 connection 1", "127.0.0.1:40000", 0.5);
+        first.served(0, 20_000);
+        first.served(2, 5_000);
+        first.badFrame();
+        first.closeConnection(1.5, "bad header");
+        for (int k = 2; k <= LinkStatistics.CLOSED_CONNECTIONS_KEPT + 10; k++) {
+            server.connection("c" + k, "127.0.0.1:" + (40000 + k), k).closeConnection(k + 0.25, "client closed");
+        }
+        LinkStatistics open = server.connection("open one", "127.0.0.1:50000", 500);
+        open.served(0, 10_000);
+        LinkStatistics.Snapshot s = server.snapshot();
+        // the server's totals count every connection, kept or not
+        assertEquals(3, s.requests());
+        assertEquals(2, s.ok());
+        assertEquals(1, s.exceptions(2));
+        assertEquals(1, s.badFrames());
+        assertEquals(LinkStatistics.CLOSED_CONNECTIONS_KEPT + 11, s.connections());
+        List<LinkStatistics.Snapshot> rows = server.connections();
+        assertEquals(LinkStatistics.CLOSED_CONNECTIONS_KEPT + 1, rows.size(), "the newest closed ones and the open one");
+        assertEquals("c11", rows.get(0).name(), "the oldest ten were dropped from the rows");
+        assertEquals("open", rows.get(rows.size() - 1).end());
+        assertEquals("client closed", rows.get(0).end());
+        assertEquals(11.25, rows.get(0).closedS(), 0.0);
+    }
 }
