@@ -38,14 +38,16 @@ public final class LinkStatistics {
     private long maxNs;
     private long requests;
     private long ok;
-    private long timeouts;
-    private long ioErrors;
-    private long crcErrors;
-    private long reconnects;
-    private long connections;
-    private long evicted;
-    private long idleClosed;
-    private long badFrames;
+    /** Event counters, indexed by the constants below. */
+    private final long[] counts = new long[8];
+    private static final int TIMEOUTS = 0;
+    private static final int IO_ERRORS = 1;
+    private static final int CRC_ERRORS = 2;
+    private static final int RECONNECTS = 3;
+    private static final int CONNECTIONS = 4;
+    private static final int EVICTED = 5;
+    private static final int IDLE_CLOSED = 6;
+    private static final int BAD_FRAMES = 7;
     private final long[] exceptions = new long[256];
     // connection rows only
     private final String peer;
@@ -74,9 +76,9 @@ public final class LinkStatistics {
      */
     public LinkStatistics connection(String connectionName, String peerAddress, double openedAtS) {
         LinkStatistics c = new LinkStatistics(connectionName, CONNECTION_WINDOW, this, peerAddress, openedAtS);
-        c.connections = 1;
+        c.counts[CONNECTIONS] = 1;
         synchronized (this) {
-            connections++;
+            counts[CONNECTIONS]++;
             open.add(c);
         }
         return c;
@@ -179,69 +181,29 @@ public final class LinkStatistics {
         }
     }
 
-    public void timeout() {
-        synchronized (this) {
-            timeouts++;
-        }
-        if (parent != null) {
-            parent.timeout();
-        }
-    }
+    public void timeout() { add(TIMEOUTS); }
 
-    public void ioError() {
-        synchronized (this) {
-            ioErrors++;
-        }
-        if (parent != null) {
-            parent.ioError();
-        }
-    }
+    public void ioError() { add(IO_ERRORS); }
 
-    public void crcError() {
-        synchronized (this) {
-            crcErrors++;
-        }
-        if (parent != null) {
-            parent.crcError();
-        }
-    }
+    public void crcError() { add(CRC_ERRORS); }
 
-    public void reconnect() {
-        synchronized (this) {
-            reconnects++;
-        }
-        if (parent != null) {
-            parent.reconnect();
-        }
-    }
+    public void reconnect() { add(RECONNECTS); }
 
     /** A frame refused at the framing level (a TCP header that cannot start a Modbus ADU; an RTU frame dropped or overlong). */
-    public void badFrame() {
-        synchronized (this) {
-            badFrames++;
-        }
-        if (parent != null) {
-            parent.badFrame();
-        }
-    }
+    public void badFrame() { add(BAD_FRAMES); }
 
     /** A server connection closed because it sent no whole request within the idle timeout. */
-    public void idleClosed() {
-        synchronized (this) {
-            idleClosed++;
-        }
-        if (parent != null) {
-            parent.idleClosed();
-        }
-    }
+    public void idleClosed() { add(IDLE_CLOSED); }
 
     /** A server connection closed to admit a newer one while the server was full. */
-    public void evicted() {
+    public void evicted() { add(EVICTED); }
+
+    private void add(int counter) {
         synchronized (this) {
-            evicted++;
+            counts[counter]++;
         }
         if (parent != null) {
-            parent.evicted();
+            parent.add(counter);
         }
     }
 
@@ -260,8 +222,9 @@ public final class LinkStatistics {
                 exOther += exceptions[c];
             }
         }
-        return new Snapshot(name, requests, ok, timeouts, ioErrors, crcErrors, reconnects, ex, exOther,
-                pct(copy, 0.50), pct(copy, 0.99), maxNs / 1e6, n, connections, evicted, idleClosed, badFrames,
+        return new Snapshot(name, requests, ok, counts[TIMEOUTS], counts[IO_ERRORS], counts[CRC_ERRORS], counts[RECONNECTS],
+                ex, exOther, pct(copy, 0.50), pct(copy, 0.99), maxNs / 1e6, n, counts[CONNECTIONS], counts[EVICTED],
+                counts[IDLE_CLOSED], counts[BAD_FRAMES],
                 peer, openedS, closedS, parent == null ? "" : Double.isNaN(closedS) ? "open" : end);
     }
 

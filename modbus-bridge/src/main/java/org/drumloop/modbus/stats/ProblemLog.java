@@ -38,26 +38,19 @@ public final class ProblemLog {
     }
 
     /** Log the counts of every kind whose interval has passed since its last line. */
-    public void flushDue() {
-        List<Kind> copy;
-        synchronized (this) {
-            copy = new ArrayList<>(kinds);
-        }
-        long now = clockNs.getAsLong();
-        for (Kind k : copy) {
-            k.flush(now, false);
-        }
-    }
+    public void flushDue() { flush(false); }
 
     /** Log every count still pending (at close). */
-    public void flush() {
+    public void flush() { flush(true); }
+
+    private void flush(boolean all) {
         List<Kind> copy;
         synchronized (this) {
             copy = new ArrayList<>(kinds);
         }
         long now = clockNs.getAsLong();
         for (Kind k : copy) {
-            k.flush(now, true);
+            k.flush(now, all);
         }
     }
 

@@ -3,7 +3,6 @@ package org.drumloop.modbus.interop;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -42,8 +41,6 @@ class RtuFuzzTest {
     private static final double PERIOD_S = 0.100;
     /** Silence after a burst: more than the server's 10 ms minimum frame gap, with room for a loaded machine. */
     private static final long SILENCE_NS = 30_000_000L;
-    /** Same guard as the TCP fuzz: half a period (the 2 ms target's figure is in the README). */
-    private static final double LATENESS_P99_LIMIT_MS = 50.0;
     private static final int THREAD_SLACK = 4;
     /**
      * FC 04, one register from 0, unit 1: 01 04 00 00 00 01 31 CA, a frame common in Modbus RTU
@@ -57,15 +54,9 @@ class RtuFuzzTest {
 
     @Test
     void burstsOfNoiseAndBrokenFramesNeverStopTheServerAnsweringTheNextValidRequest() throws Exception {
-        String socat = ExternalTools.require("socat", "socat");
-        Path a = dir.resolve("ttyA");
-        Path b = dir.resolve("ttyB");
-        Process pair = new ProcessBuilder(socat, "-d", "-d", "pty,raw,echo=0,link=" + a, "pty,raw,echo=0,link=" + b)
-                .redirectErrorStream(true).redirectOutput(dir.resolve("socat.log").toFile()).start();
-        try {
-            assertTrue(TestMaps.await(() -> Files.exists(a) && Files.exists(b), 15), "socat did not create the pty pair");
-            SerialSettings sa = new SerialSettings(a.toString(), 19200, SerialSettings.Parity.EVEN, 1);
-            SerialSettings sb = new SerialSettings(b.toString(), 19200, SerialSettings.Parity.EVEN, 1);
+        try (SerialPair pair = new SerialPair(dir)) {
+            SerialSettings sa = pair.a();
+            SerialSettings sb = pair.b();
             try (LogCapture log = new LogCapture();
                  ImageServer server = ImageServer.rtu(TestMaps.small(2.0), sa);
                  PacedLoop loop = new PacedLoop(server, PERIOD_S, TIME_LIMIT_S)) {
@@ -126,7 +117,7 @@ class RtuFuzzTest {
                 LinkStatistics.Snapshot s = server.statistics().snapshot();
                 assertTrue(s.crcErrors() > 0 && s.badFrames() > 0, s.toString());
 
-                assertTrue(loop.latenessMs(0.99) < LATENESS_P99_LIMIT_MS, "loop p99 lateness " + loop.latenessMs(0.99) + " ms");
+                assertTrue(loop.latenessMs(0.99) < PacedLoop.LATENESS_P99_LIMIT_MS, "loop p99 lateness " + loop.latenessMs(0.99) + " ms");
                 int lines = log.lines().size();
                 assertTrue(lines <= 4 * (Math.ceil(seconds) + 2), lines + " log lines in " + seconds + " s");
                 System.out.printf(Locale.ROOT, "rtu fuzz: %d rounds in %.1f s, items %s, %d answers to merged requests, %d retries; %s; "
@@ -134,9 +125,6 @@ class RtuFuzzTest {
                         rounds, seconds, Arrays.toString(kinds), mergedAnswered, retries, s, loop.latenessMs(0.5), loop.latenessMs(0.99),
                         loop.latenessMs(1.0), loop.steps(), threads.peakAdded(), lines);
             }
-        } finally {
-            pair.destroy();
-            pair.waitFor();
         }
     }
 

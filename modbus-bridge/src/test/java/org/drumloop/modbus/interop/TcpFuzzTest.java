@@ -25,7 +25,9 @@ import com.digitalpetri.modbus.pdu.ReadInputRegistersRequest;
 import com.digitalpetri.modbus.pdu.WriteMultipleRegistersRequest;
 import com.digitalpetri.modbus.tcp.client.NettyTcpClientTransport;
 
+import org.drumloop.core.io.Signal;
 import org.drumloop.modbus.TcpEndpoint;
+import org.drumloop.modbus.client.RigClient;
 import org.drumloop.modbus.frame.Mbap;
 import org.drumloop.modbus.frame.Modbus;
 import org.drumloop.modbus.server.ImageServer;
@@ -50,30 +52,69 @@ class TcpFuzzTest {
     /** The whole run must end well inside this, or the test fails rather than hang [s]. */
     private static final double TIME_LIMIT_S = 45.0;
     private static final double PERIOD_S = 0.100;
-    /**
-     * Guard against a server that starves the loop feeding the image (holding the image lock,
-     * piling up threads): half a period, 25 times the 2 ms target, so that a 2-core machine
-     * running other builds does not fail it (p99 reached 40-60 ms at a load average of 12).
-     * The figure on a quiet machine is in modbus-bridge/README.md.
-     */
-    private static final double LATENESS_P99_LIMIT_MS = 50.0;
     /** JVM threads that may come and go beside the server's (reference handler, attach listener, ...). */
     private static final int THREAD_SLACK = 4;
+    /** Kinds of problem the server logs (ProblemLog kinds), with room: the log's bound is this many lines a second. */
+    private static final int LOG_KINDS = 12;
     /** 12 mA on 0..27648 = 4..20 mA: 13824 = 0x3600 (check values §3, link maps' convention). */
     private static final byte[] LEVEL_12_MA = {0x36, 0x00};
 
+    /**
+     * The server under test with the loop feeding it and the log captured; on close, checks what
+     * must hold after any abuse: the independent client is answered correctly, the loop kept its
+     * schedule, the server's threads stayed within {@code allowedThreads}, the log stayed short.
+     */
+    private static final class Served implements AutoCloseable {
+        final ServerLimits limits = ServerLimits.DEFAULT;
+        final long t0 = System.nanoTime();
+        final long deadlineNs = t0 + (long) (TIME_LIMIT_S * 1e9);
+        final LogCapture log = new LogCapture();
+        final ImageServer server;
+        final PacedLoop loop;
+        ThreadWatch threads;
+
+        Served() throws IOException {
+            server = ImageServer.tcp(TestMaps.small(2.0), new TcpEndpoint("127.0.0.1", 0), limits);
+            loop = new PacedLoop(server, PERIOD_S, TIME_LIMIT_S);
+        }
+
+        /** Start counting threads: after the test's own long-lived threads have started. */
+        void watchThreads() { threads = new ThreadWatch(); }
+
+        double seconds() { return (System.nanoTime() - t0) * 1e-9; }
+
+        /** The checks of every abuse; returns a line of figures for the build log. */
+        String check(String what, int allowedThreads) throws Exception {
+            double seconds = seconds();
+            assertTrue(threads.peakAdded() <= allowedThreads, "threads rose by " + threads.peakAdded() + ", allowed " + allowedThreads);
+            answeredCorrectlyByAnIndependentClient(server.port());
+            assertTrue(loop.steps() >= 5, "the loop hardly ran during the " + what + ": " + loop.steps() + " steps");
+            double p99 = loop.latenessMs(0.99);
+            assertTrue(p99 < PacedLoop.LATENESS_P99_LIMIT_MS, String.format(Locale.ROOT, "100 ms loop p99 lateness %.3f ms during the %s", p99, what));
+            // at most one line a second per kind of problem, and the counts at close
+            int lines = log.lines().size();
+            assertTrue(lines <= LOG_KINDS * (Math.ceil(seconds) + 2), lines + " log lines in " + seconds + " s: "
+                    + log.lines().subList(0, Math.min(20, lines)));
+            return String.format(Locale.ROOT, "%s in %.1f s; %s; loop lateness p50 %.3f ms p99 %.3f ms max %.3f ms over %d steps;"
+                            + " threads +%d; %d log lines", what, seconds, server.statistics().snapshot(), loop.latenessMs(0.50),
+                    p99, loop.latenessMs(1.0), loop.steps(), threads.peakAdded(), lines);
+        }
+
+        @Override
+        public void close() throws InterruptedException {
+            loop.close();
+            server.close();
+            log.close();
+        }
+    }
+
     @Test
     void oneHundredThousandMalformedFramesLeaveTheServerAnsweringAndTheLoopOnTime() throws Exception {
-        ServerLimits limits = ServerLimits.DEFAULT;
-        long deadlineNs = System.nanoTime() + (long) (TIME_LIMIT_S * 1e9);
-        try (LogCapture log = new LogCapture();
-             ImageServer server = ImageServer.tcp(TestMaps.small(2.0), new TcpEndpoint("127.0.0.1", 0), limits);
-             PacedLoop loop = new PacedLoop(server, PERIOD_S, TIME_LIMIT_S)) {
-            ThreadWatch threads = new ThreadWatch();
-            long t0 = System.nanoTime();
+        try (Served t = new Served()) {
+            t.watchThreads();
             List<Worker> workers = new ArrayList<>();
             for (int w = 0; w < WORKERS; w++) {
-                workers.add(new Worker(server.port(), new Random(SEED + w), FRAMES / WORKERS, deadlineNs));
+                workers.add(new Worker(t.server.port(), new Random(SEED + w), FRAMES / WORKERS, t.deadlineNs));
             }
             for (Worker w : workers) {
                 w.thread.start();
@@ -91,50 +132,40 @@ class TcpFuzzTest {
                 connections += w.connections;
                 wrong.addAll(w.wrong);
             }
-            double seconds = (System.nanoTime() - t0) * 1e-9;
-            // each worker's own thread and at most one reader at a time, plus the server's pool and acceptor
-            int allowed = 2 * WORKERS + limits.maxConnections() + 1 + THREAD_SLACK;
             assertEquals(FRAMES, sent, "frames sent before the time limit (seed " + SEED + ")");
             assertEquals(List.of(), wrong, "malformed answers (seed " + SEED + ")");
             // every frame with a plausible header is answered: data, or an exception (01, 02, 03, 0B);
             // a breaking frame may be answered too when a short length leaves a request in front of it
             assertTrue(answers >= expected, answers + " answers to " + expected + " well-framed requests");
-            assertTrue(threads.peakAdded() <= allowed, "threads rose by " + threads.peakAdded() + ", allowed " + allowed);
-            LinkStatistics.Snapshot s = server.statistics().snapshot();
+            LinkStatistics.Snapshot s = t.server.statistics().snapshot();
             assertTrue(s.badFrames() > 0 && s.exceptions(Modbus.EX_ILLEGAL_FUNCTION) > 0
                     && s.exceptions(Modbus.EX_ILLEGAL_DATA_VALUE) > 0 && s.exceptions(Modbus.EX_ILLEGAL_DATA_ADDRESS) > 0
                     && s.exceptions(Modbus.EX_GATEWAY_TARGET_NO_RESPONSE) > 0, "the fuzz missed a kind of problem: " + s);
-
-            answeredCorrectlyByAnIndependentClient(server.port());
-            assertLoopKeptTime(loop, "fuzz");
-            assertLogStayedSmall(log, seconds);
-            System.out.printf(Locale.ROOT, "tcp fuzz: %d frames on %d connections in %.1f s, %d answers; %s; "
-                            + "loop lateness p50 %.3f ms p99 %.3f ms max %.3f ms over %d steps; threads +%d; %d log lines%n",
-                    sent, connections, seconds, answers, s, loop.latenessMs(0.50), loop.latenessMs(0.99),
-                    loop.latenessMs(1.0), loop.steps(), threads.peakAdded(), log.lines().size());
+            // each worker's own thread and at most one reader at a time, plus the server's pool and acceptor
+            String figures = t.check("fuzz", 2 * WORKERS + t.limits.maxConnections() + 1 + THREAD_SLACK);
+            System.out.printf(Locale.ROOT, "tcp %d frames on %d connections, %d answers: %s%n", sent, connections, answers, figures);
         }
     }
 
     @Test
     void aFloodOfOneThousandConnectionsKeepsTheThreadsBoundedAndAPollingClientServed() throws Exception {
-        ServerLimits limits = ServerLimits.DEFAULT;
-        long deadlineNs = System.nanoTime() + (long) (TIME_LIMIT_S * 1e9);
-        try (LogCapture log = new LogCapture();
-             ImageServer server = ImageServer.tcp(TestMaps.small(2.0), new TcpEndpoint("127.0.0.1", 0), limits);
-             PacedLoop loop = new PacedLoop(server, PERIOD_S, TIME_LIMIT_S)) {
-            ThreadWatch threads = new ThreadWatch();
-            long t0 = System.nanoTime();
+        try (Served t = new Served();
+             RigClient poller = RigClient.tcp(TestMaps.small(2.0), new TcpEndpoint("127.0.0.1", t.server.port()),
+                     new RigClient.Options(0.05, 0.5, 1, 0.05, 0.2))) {
+            poller.start();
+            assertTrue(TestMaps.await(() -> poller.isFresh(Signal.LEVEL_DP_A), 10), "the poller never got an answer");
+            t.watchThreads();
             // keep up to 64 flood sockets open on our side; the server closes what it must
             ArrayDeque<Socket> open = new ArrayDeque<>();
             int attempts = 0;
             int refused = 0;
             Random rnd = new Random(SEED);
             try {
-                while (attempts < FLOOD && System.nanoTime() < deadlineNs) {
+                while (attempts < FLOOD && System.nanoTime() < t.deadlineNs) {
                     attempts++;
                     Socket s = new Socket();
                     try {
-                        s.connect(new InetSocketAddress("127.0.0.1", server.port()), 2000);
+                        s.connect(new InetSocketAddress("127.0.0.1", t.server.port()), 2000);
                         if (rnd.nextBoolean()) {
                             // half of them start a header and stop
                             s.getOutputStream().write(new byte[] {0, 1, 0, 0});
@@ -153,18 +184,20 @@ class TcpFuzzTest {
                     s.close();
                 }
             }
-            double seconds = (System.nanoTime() - t0) * 1e-9;
             assertEquals(FLOOD, attempts, "connection attempts before the time limit");
-            int allowed = limits.maxConnections() + 1 + THREAD_SLACK;
-            assertTrue(threads.peakAdded() <= allowed, "threads rose by " + threads.peakAdded() + ", allowed " + allowed);
-            LinkStatistics.Snapshot s = server.statistics().snapshot();
-            assertTrue(s.evicted() >= FLOOD - refused - limits.maxConnections() - 64, s.toString());
-            answeredCorrectlyByAnIndependentClient(server.port());
-            assertLoopKeptTime(loop, "flood");
-            assertLogStayedSmall(log, seconds);
-            System.out.printf(Locale.ROOT, "tcp flood: %d attempts (%d refused) in %.1f s; %s; loop lateness p99 %.3f ms "
-                            + "max %.3f ms; threads +%d; %d log lines%n", attempts, refused, seconds, s,
-                    loop.latenessMs(0.99), loop.latenessMs(1.0), threads.peakAdded(), log.lines().size());
+            // every attempt reaches the server (a loaded machine may still hold some in the backlog)
+            // and a full server made room by closing the connection idle longest
+            int accepted = FLOOD - refused + 1;
+            assertTrue(TestMaps.await(() -> t.server.statistics().snapshot().connections() >= accepted, 10),
+                    "connections accepted: " + t.server.statistics().snapshot());
+            assertTrue(t.server.statistics().snapshot().evicted() > 0, t.server.statistics().snapshot().toString());
+            // the poller sends a request every 50 ms, so the silent flood connections go before it
+            long ok = poller.statistics().snapshot().ok();
+            assertTrue(TestMaps.await(() -> poller.statistics().snapshot().ok() > ok + 5 && poller.isFresh(Signal.LEVEL_DP_A), 10),
+                    "the poller was not served after the flood: " + poller.statistics().snapshot());
+            String figures = t.check("flood", t.limits.maxConnections() + 1 + THREAD_SLACK);
+            System.out.printf(Locale.ROOT, "tcp %d connection attempts (%d refused), poller %s: %s%n", attempts, refused,
+                    poller.statistics().snapshot(), figures);
         }
     }
 
@@ -186,20 +219,6 @@ class TcpFuzzTest {
             client.disconnect();
             transport.disconnect().toCompletableFuture().get(5, TimeUnit.SECONDS);
         }
-    }
-
-    private static void assertLoopKeptTime(PacedLoop loop, String what) {
-        assertTrue(loop.steps() >= 5, "the loop hardly ran during the " + what + ": " + loop.steps() + " steps");
-        double p99 = loop.latenessMs(0.99);
-        assertTrue(p99 < LATENESS_P99_LIMIT_MS, String.format(Locale.ROOT,
-                "100 ms loop p99 lateness %.3f ms during the %s", p99, what));
-    }
-
-    /** At most one line a second per kind of problem, and the counts at close. */
-    private static void assertLogStayedSmall(LogCapture log, double seconds) {
-        int kinds = 12;
-        assertTrue(log.lines().size() <= kinds * (Math.ceil(seconds) + 2), log.lines().size() + " log lines in "
-                + seconds + " s: " + log.lines().subList(0, Math.min(20, log.lines().size())));
     }
 
     /**
