@@ -25,7 +25,8 @@ import org.slf4j.event.Level;
  * because for a writer that address is not part of the writable address space (exception 03 is
  * reserved by the protocol for malformed request fields such as a quantity or byte count out of
  * range). A multi-register write must cover whole 32-bit channels. Written values are clamped to
- * the channel's engineering range and each clamp is logged; a non-finite float is refused with 03.
+ * the channel's engineering range and clamps are logged (once a second per channel at most, with
+ * counts); a non-finite float is refused with 03.
  * FC 1, 2, 3, 4, 5, 6, 15 and 16 are served; any other function answers exception 01.
  *
  * <p>Thread-safe: network threads and the plant loop meet on one short lock; {@link #publishInputs}

@@ -15,6 +15,7 @@ import java.util.concurrent.LinkedBlockingQueue;
 import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.concurrent.locks.LockSupport;
 
 import org.drumloop.modbus.TcpEndpoint;
 import org.drumloop.modbus.frame.Mbap;
@@ -34,6 +35,8 @@ import org.slf4j.event.Level;
  */
 final class TcpServer implements AutoCloseable {
     private static final Logger LOG = LoggerFactory.getLogger(TcpServer.class);
+    /** Pause after a failed accept [ns]. */
+    private static final long ACCEPT_BACKOFF_NS = 50_000_000L;
 
     private final ServedImage image;
     private final ServerSocket listener;
@@ -87,7 +90,9 @@ final class TcpServer implements AutoCloseable {
                 // housekeeping below
             } catch (IOException e) {
                 if (open) {
+                    // out of file descriptors, say: report it and give the system a moment, rather than spin
                     acceptFailed.report("accept failed: {}", e.toString());
+                    LockSupport.parkNanos(ACCEPT_BACKOFF_NS);
                 }
             }
             long now = System.nanoTime();
