@@ -131,7 +131,7 @@ public final class ServePlantCommand implements Callable<Integer> {
         }
         o.println("serving " + plantPath.getFileName() + " with map " + m.file() + " on "
                 + (link.isRtu() ? link.serial().device() + " " + link.baud + " baud" : "tcp " + link.tcp(DEFAULT_TCP).host() + ":" + server.port()
-                        + " (at most " + limits.maxConnections + " connections, idle timeout " + limits.idleTimeoutS + " s)")
+                        + " (at most " + limits.maxConnections + " connections, idle timeout " + LoopbackCommand.fmt(limits.idleTimeoutS) + " s)")
                 + (durationS > 0 ? " for " + durationS + " s" : " until stopped (Ctrl-C)"));
         o.println("A test bench, not a safety system.");
         o.flush();
