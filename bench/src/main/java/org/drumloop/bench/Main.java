@@ -10,6 +10,7 @@ import org.drumloop.bench.cli.DemoCommand;
 import org.drumloop.bench.cli.InterlocksCommand;
 import org.drumloop.bench.cli.PerfCommand;
 import org.drumloop.bench.cli.RunCommand;
+import org.drumloop.bench.cli.TuneCommand;
 import org.drumloop.bench.record.BuildInfo;
 import org.drumloop.bench.record.Invocation;
 import org.slf4j.LoggerFactory;
@@ -35,7 +36,7 @@ import picocli.CommandLine.Option;
             "3:records could not be written",
             "4:internal error"},
         subcommands = {DemoCommand.class, RunCommand.class, CheckCommand.class, InterlocksCommand.class, BumpCommand.class,
-            PerfCommand.class, CommandLine.HelpCommand.class})
+            PerfCommand.class, TuneCommand.class, CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     /** Subcommands of other parts of the bench, registered when present on the class path. */
     static final String[] OPTIONAL_COMMANDS = {
