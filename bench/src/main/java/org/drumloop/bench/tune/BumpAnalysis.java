@@ -101,7 +101,8 @@ public final class BumpAnalysis {
             double[] q = one.p();
             java.util.List<double[]> starts = new java.util.ArrayList<>();
             for (double f : new double[] {3, 10, 30}) {
-                for (double sign : new double[] {-0.3, 0.3}) {
+                for (double sign : new double[] {-0.3, 0.3, -1}) {
+                    // -1: a transient that dies away again (swell that the pressure control takes back)
                     starts.add(new double[] {q[0], q[1], q[2], sign * q[1], f * q[2], q[3], q[4]});
                 }
             }

@@ -7,10 +7,11 @@ import org.drumloop.plant.Plant;
 import org.drumloop.plant.PlantConfig;
 
 /**
- * Open-loop bump tests on the simulated plant: from steady state at the plant file's nominal load,
- * with the feedwater control open (valve or feed flow held) and, by default, the firing held as
- * {@code drumloop bump} holds it (every input frozen but one), one input is stepped at
- * {@value #STEP_AT_S} s:
+ * Open-loop bump tests on the simulated plant, as they are run on a boiler: from steady state at the
+ * plant file's nominal load, with the feedwater control open (valve or feed flow held) and the
+ * plant's own pressure control (firing) in automatic, as it is in every scenario, one input is
+ * stepped at {@value #STEP_AT_S} s ({@code drumloop bump} holds the firing instead, a different
+ * test):
  * <ul>
  * <li>feed valve demand by {@link #VALVE_STEP_FRAC} of travel (down when the valve is above 80 %),
  *     feed flow from the pump and valve hydraulics: the slave's process;</li>
@@ -53,7 +54,7 @@ public final class PlantBumps {
      * @throws IllegalStateException the plant left its valid range during the test
      */
     public static Trend run(PlantConfig cfg, Input input) {
-        return run(cfg, input, input == Input.VALVE ? VALVE_DURATION_S : LEVEL_DURATION_S, true);
+        return run(cfg, input, input == Input.VALVE ? VALVE_DURATION_S : LEVEL_DURATION_S, false);
     }
 
     /**

@@ -17,10 +17,10 @@ import org.drumloop.core.control.PidParams;
  * zero), half the largest neglected lag and every other lag in full (the half rule), plus half the
  * controller's scan period.
  *
- * <p>Swell compensation ({@code swell = K tau s/(tau s + 1) q_steam}): {@code K} is the fitted swell
- * height per unit steam flow ({@code kL} of the steam fit); {@code tau} is the swell's inverse-response
- * time {@code -kL/kI}, the time the open-loop level needs to come back to where it started, i.e.
- * how long the level misleads about the water inventory after a steam change.
+ * <p>Swell compensation ({@code swell = K tau s/(tau s + 1) q_steam}): the washout is matched to the
+ * fitted swell, the level's response to a unit steam step less its integrating part (the lag terms of
+ * the fit): {@code K} is the swell's peak height and {@code K tau} its area above zero over the
+ * record, so the compensation takes out as much level-seconds as the swell puts in.
  */
 public final class TuningDesign {
     /** The loops {@code --loops} can name. */
@@ -154,16 +154,16 @@ public final class TuningDesign {
                 notes.add("swell: no steam-flow bump in the data; kept the base settings");
             } else {
                 BumpFit s = fits.steam();
-                double kI = s.get("kI");
-                // swell height: the lag terms together, i.e. how far above its integrating asymptote the level settles
-                double kL = s.get("kL") + (s.kind() == StepModel.Kind.INTEGRATOR_TWO_LAGS ? s.get("kL2") : 0);
-                if (!(kL > 0) || !(kI < 0)) {
-                    notes.add(String.format(Locale.ROOT, "swell: the steam step shows no swell (kI = %.4g, kL = %.4g);"
-                            + " kept the base settings", kI, kL));
+                double[] peakArea = swellPeakArea(s);
+                if (!(peakArea[0] > 0) || !(s.get("kI") < 0)) {
+                    notes.add(String.format(Locale.ROOT, "swell: the steam step shows no swell (level slope %.4g,"
+                            + " peak above the integrating part %.4g m per kg/s); kept the base settings", s.get("kI"),
+                            peakArea[0]));
                 } else {
-                    swell = new SwellTuning(kL, -kL / kI, String.format(Locale.ROOT,
-                            "swell height %.4g m/(kg/s); inverse-response time (level back through its start) %.4g s;"
-                                    + " swell lag %.4g s", kL, -kL / kI, s.get("tau")));
+                    double tau = peakArea[1] / peakArea[0];
+                    swell = new SwellTuning(peakArea[0], tau, String.format(Locale.ROOT,
+                            "washout matched to the fitted swell: peak %.4g m/(kg/s), area %.4g m s/(kg/s)",
+                            peakArea[0], peakArea[1]));
                 }
             }
         }
@@ -226,6 +226,30 @@ public final class TuningDesign {
             l[lags.length] = extra;
             return l;
         }
+    }
+
+    /**
+     * Peak [m per kg/s] and positive area [m s per kg/s] of the swell: the fitted model's lag terms'
+     * response to a unit step, over the fitted record's length after the step.
+     */
+    static double[] swellPeakArea(BumpFit f) {
+        boolean two = f.kind() == StepModel.Kind.INTEGRATOR_TWO_LAGS;
+        double kL = f.get("kL");
+        double tau = f.get("tau");
+        double kL2 = two ? f.get("kL2") : 0;
+        double tau2 = two ? f.get("tau2") : 1;
+        double span = f.tS()[f.tS().length - 1] - f.tS()[0];
+        int n = 20_000;
+        double h = span / n;
+        double peak = 0;
+        double area = 0;
+        for (int i = 0; i <= n; i++) {
+            double t = i * h;
+            double v = kL * (1 - Math.exp(-t / tau)) + kL2 * (1 - Math.exp(-t / tau2));
+            peak = Math.max(peak, v);
+            area += Math.max(0, v) * (i == 0 || i == n ? h / 2 : h);
+        }
+        return new double[] {peak, area};
     }
 
     private static String lagText(double[] lags) {
