@@ -18,9 +18,11 @@ import org.drumloop.core.control.PidParams;
  * controller's scan period.
  *
  * <p>Swell compensation ({@code swell = K tau s/(tau s + 1) q_steam}): the washout is matched to the
- * fitted swell, the level's response to a unit steam step less its integrating part (the lag terms of
- * the fit): {@code K} is the swell's peak height and {@code K tau} its area above zero over the
- * record, so the compensation takes out as much level-seconds as the swell puts in.
+ * part of the fitted swell that dies away. The swell is the level's response to a unit steam step
+ * less its integrating part (the lag terms of the fit); with its final value {@code s_inf} (the
+ * level a steadily higher load keeps at constant water inventory, which the master must correct
+ * anyway) {@code K} is the peak above {@code max(s_inf, 0)} and {@code K tau} the area above it over
+ * the record, so the compensation holds back as many level-seconds as the passing swell puts in.
  */
 public final class TuningDesign {
     /** The loops {@code --loops} can name. */
@@ -156,14 +158,14 @@ public final class TuningDesign {
                 BumpFit s = fits.steam();
                 double[] peakArea = swellPeakArea(s);
                 if (!(peakArea[0] > 0) || !(s.get("kI") < 0)) {
-                    notes.add(String.format(Locale.ROOT, "swell: the steam step shows no swell (level slope %.4g,"
-                            + " peak above the integrating part %.4g m per kg/s); kept the base settings", s.get("kI"),
-                            peakArea[0]));
+                    notes.add(String.format(Locale.ROOT, "swell: the steam step shows no passing swell (level slope %.4g,"
+                            + " passing swell %.4g m per kg/s); kept the base settings", s.get("kI"), peakArea[0]));
                 } else {
                     double tau = peakArea[1] / peakArea[0];
                     swell = new SwellTuning(peakArea[0], tau, String.format(Locale.ROOT,
-                            "washout matched to the fitted swell: peak %.4g m/(kg/s), area %.4g m s/(kg/s)",
-                            peakArea[0], peakArea[1]));
+                            "washout matched to the passing part of the fitted swell: height %.4g m/(kg/s), area"
+                                    + " %.4g m s/(kg/s), lasting swell %.4g m/(kg/s) left to the master", peakArea[0],
+                            peakArea[1], peakArea[2]));
                 }
             }
         }
@@ -229,8 +231,9 @@ public final class TuningDesign {
     }
 
     /**
-     * Peak [m per kg/s] and positive area [m s per kg/s] of the swell: the fitted model's lag terms'
-     * response to a unit step, over the fitted record's length after the step.
+     * The passing swell: height above the lasting part [m per kg/s], area above it [m s per kg/s]
+     * over the fitted record's length, and the lasting part {@code s_inf} itself, from the fitted
+     * model's lag terms' response to a unit step.
      */
     static double[] swellPeakArea(BumpFit f) {
         boolean two = f.kind() == StepModel.Kind.INTEGRATOR_TWO_LAGS;
@@ -241,15 +244,17 @@ public final class TuningDesign {
         double span = f.tS()[f.tS().length - 1] - f.tS()[0];
         int n = 20_000;
         double h = span / n;
+        double lasting = kL + kL2;
+        double floor = Math.max(0, lasting);
         double peak = 0;
         double area = 0;
         for (int i = 0; i <= n; i++) {
             double t = i * h;
-            double v = kL * (1 - Math.exp(-t / tau)) + kL2 * (1 - Math.exp(-t / tau2));
+            double v = kL * (1 - Math.exp(-t / tau)) + kL2 * (1 - Math.exp(-t / tau2)) - floor;
             peak = Math.max(peak, v);
             area += Math.max(0, v) * (i == 0 || i == n ? h / 2 : h);
         }
-        return new double[] {peak, area};
+        return new double[] {peak, area, lasting};
     }
 
     private static String lagText(double[] lags) {
