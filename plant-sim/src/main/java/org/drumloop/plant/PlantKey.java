@@ -124,6 +124,27 @@ public enum PlantKey {
     /** @return the key as written in a plant file */
     public String key() { return key; }
 
+    /** True for a key that takes a number with a unit (not a text or a choice). */
+    public boolean numeric() { return dim != Dim.TEXT && dim != Dim.CHOICE; }
+
+    /** Smallest value the file accepts, SI. */
+    public double minSi() { return minSi; }
+
+    /** Largest value the file accepts, SI. */
+    public double maxSi() { return maxSi; }
+
+    /**
+     * A value written in one of this key's units, in SI; NaN when the unit does not belong to the key.
+     * Used to write a value back in the unit its line already has.
+     */
+    public double toSi(double value, String unit) {
+        int u = numeric() ? dim.unitIndex(unit) : -1;
+        return u < 0 ? Double.NaN : dim.toSi(value, u);
+    }
+
+    /** The key of a plant-file word, or null. */
+    public static PlantKey of(String word) { return byKey(word); }
+
     static PlantKey byKey(String key) {
         for (PlantKey k : values()) {
             if (k.key.equals(key)) {
