@@ -7,6 +7,7 @@ import java.util.List;
 import org.drumloop.bench.cli.BumpCommand;
 import org.drumloop.bench.cli.CheckCommand;
 import org.drumloop.bench.cli.DemoCommand;
+import org.drumloop.bench.cli.FitPlantCommand;
 import org.drumloop.bench.cli.InterlocksCommand;
 import org.drumloop.bench.cli.PerfCommand;
 import org.drumloop.bench.cli.RunCommand;
@@ -36,7 +37,8 @@ import picocli.CommandLine.Option;
             "3:records could not be written",
             "4:internal error"},
         subcommands = {DemoCommand.class, RunCommand.class, CheckCommand.class, InterlocksCommand.class, BumpCommand.class,
-            PerfCommand.class, TuneCommand.class, CommandLine.HelpCommand.class})
+            PerfCommand.class, TuneCommand.class, FitPlantCommand.class,
+            CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     /** Subcommands of other parts of the bench, registered when present on the class path. */
     static final String[] OPTIONAL_COMMANDS = {
