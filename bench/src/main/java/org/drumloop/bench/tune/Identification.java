@@ -8,6 +8,7 @@ import org.hipparchus.linear.Array2DRowRealMatrix;
 import org.hipparchus.linear.ArrayRealVector;
 import org.hipparchus.linear.RealMatrix;
 import org.hipparchus.linear.RealVector;
+import org.hipparchus.optim.nonlinear.vector.leastsquares.EvaluationRmsChecker;
 import org.hipparchus.optim.nonlinear.vector.leastsquares.LeastSquaresBuilder;
 import org.hipparchus.optim.nonlinear.vector.leastsquares.LeastSquaresOptimizer;
 import org.hipparchus.optim.nonlinear.vector.leastsquares.LeastSquaresProblem;
@@ -132,6 +133,7 @@ public final class Identification {
                     clamp(p, lo, hi);
                     return new ArrayRealVector(p, false);
                 })
+                .checker(new EvaluationRmsChecker(1e-9)) // converged when the RMS error stops changing
                 .maxEvaluations(20 * MAX_ITERATIONS)
                 .maxIterations(MAX_ITERATIONS)
                 .lazyEvaluation(false)
@@ -197,7 +199,7 @@ public final class Identification {
         java.util.Arrays.fill(hi, Double.POSITIVE_INFINITY);
         for (int tau : kind.lagIndices()) {
             lo[tau] = 0.01 * minStep;
-            hi[tau] = 10 * dur;
+            hi[tau] = dur / 3; // a lag must settle within the record, or it could pass for the integrator
         }
         lo[kind.thetaIndex()] = 0;
         hi[kind.thetaIndex()] = 0.5 * dur;
