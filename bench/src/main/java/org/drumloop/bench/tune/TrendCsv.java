@@ -252,9 +252,9 @@ public final class TrendCsv {
         for (int i = 1; i < n; i++) {
             steps[i - 1] = t[i] - t[i - 1];
             if (!(t[i] > t[i - 1])) {
-                problems.add(new ConfigException(shown, lineOf[i], column, String.format(Locale.ROOT,
-                        "time does not increase (%.6g s after %.6g s on line %d)", t[i] - t[0], t[i - 1] - t[0],
-                        lineOf[i - 1])));
+                problems.add(new ConfigException(shown, lineOf[i], column, "time does not increase ("
+                        + KeyLines.number(t[i] - t[0], 6) + " s after " + KeyLines.number(t[i - 1] - t[0], 6)
+                        + " s on line " + lineOf[i - 1] + ")"));
                 if (problems.size() >= MAX_PROBLEMS) {
                     return;
                 }
@@ -268,9 +268,9 @@ public final class TrendCsv {
         double median = sorted[sorted.length / 2];
         for (int i = 0; i < steps.length && problems.size() < MAX_PROBLEMS; i++) {
             if (steps[i] > GAP_FACTOR * median) {
-                problems.add(new ConfigException(shown, lineOf[i + 1], column, String.format(Locale.ROOT,
-                        "gap in the record: %.6g s between line %d and this line (sampled every %.6g s)", steps[i],
-                        lineOf[i], median)));
+                problems.add(new ConfigException(shown, lineOf[i + 1], column, "gap in the record: "
+                        + KeyLines.number(steps[i], 6) + " s between line " + lineOf[i] + " and this line (sampled every "
+                        + KeyLines.number(median, 6) + " s)"));
             }
         }
     }
