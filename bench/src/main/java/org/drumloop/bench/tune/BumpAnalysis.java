@@ -132,9 +132,20 @@ public final class BumpAnalysis {
         a[j] = t;
     }
 
-    /** Of two fits of the same loop, the one with the better normalised fit. */
+    /**
+     * Of two fits of the same loop, the one on the longer record (a level response needs time to
+     * show its integrating part), else the better normalised fit.
+     */
     private static BumpFit better(BumpFit a, BumpFit b) {
-        return a == null || b.fitPercent() > a.fitPercent() ? b : a;
+        if (a == null) {
+            return b;
+        }
+        double da = a.tS()[a.tS().length - 1] - a.tS()[0];
+        double db = b.tS()[b.tS().length - 1] - b.tS()[0];
+        if (Math.abs(da - db) > 0.1 * Math.max(da, db)) {
+            return db > da ? b : a;
+        }
+        return b.fitPercent() > a.fitPercent() ? b : a;
     }
 
     private static double range(double[] v) {
