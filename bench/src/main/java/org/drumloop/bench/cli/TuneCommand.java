@@ -150,7 +150,7 @@ public final class TuneCommand implements Callable<Integer> {
                 }
                 written.add(f.toString());
             }
-            sources.add(String.format(Locale.ROOT, "simulated bump tests on %s (%s) at %.0f %% load, firing held: feed"
+            sources.add(String.format(Locale.ROOT, "simulated bump tests on %s (%s) at %.0f %% load, pressure control in automatic: feed"
                     + " valve %+.0f %% of travel for %.0f s, feed flow and steam flow each %+.0f %% of rating for %.0f s,"
                     + " steps at %.0f s; records bump-valve.csv, bump-feed.csv, bump-steam.csv",
                     ConfigResolver.displayName(plantPath), pc.name(), 100 * pc.nominalLoadFrac(),
