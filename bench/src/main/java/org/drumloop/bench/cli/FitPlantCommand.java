@@ -15,6 +15,7 @@ import java.util.concurrent.Callable;
 import org.drumloop.bench.ConfigResolver;
 import org.drumloop.bench.ExitCode;
 import org.drumloop.bench.record.AtomicOutput;
+import org.drumloop.bench.record.RecordHeader;
 import org.drumloop.bench.sim.ScenarioRunner;
 import org.drumloop.bench.tune.FitReport;
 import org.drumloop.bench.tune.PlantFileWriter;
@@ -96,6 +97,8 @@ public final class FitPlantCommand implements Callable<Integer> {
                     + ConfigResolver.names("plants", ".plant") + ")");
         }
         PlantConfig start = ScenarioRunner.loadPlant(startPath);
+        RecordHeader.Builder record = RecordHeader.begin("Plant file fitted to a recorded trend: " + trend.getFileName());
+        record.input("start plant", startPath, ConfigResolver.displayName(startPath));
         List<PlantKey> keys = keys(fit);
         if (!(threads >= 1 && threads <= 64)) {
             throw new ConfigException("--threads", 0, String.valueOf(threads), "must be 1 to 64");
@@ -108,6 +111,7 @@ public final class FitPlantCommand implements Callable<Integer> {
             throw new ConfigException(trend.toString(), 1, "firing", "no firing or heat column: the model needs the"
                     + " heat input (map yours with --column firing=HEADER or --column heat=HEADER)");
         }
+        record.input("trend", trend, trend.toString());
         long t0 = System.nanoTime();
         PlantFit.Result r = PlantFit.fit(start, PlantFit.Data.of(t), keys, threads);
         double wallS = (System.nanoTime() - t0) * 1e-9;
@@ -125,7 +129,7 @@ public final class FitPlantCommand implements Callable<Integer> {
                 PlantFileWriter.header(trend.getFileName().toString(), t.sha256(), r));
         ScenarioRunner.loadPlant(write(out, lines)); // the fitted file reads back, or the error names its line
         Path report = reportPath(out);
-        AtomicOutput.write(report, FitReport.render(ConfigResolver.displayName(startPath), trend.toString(), t.sha256(),
+        AtomicOutput.write(report, FitReport.render(record.finish(), ConfigResolver.displayName(startPath),
                 out.toString(), r, t.tS(), t.get(TrendSignal.DRUM_PRESSURE), wallS));
         o.println("wrote " + out + ", " + report);
         return ExitCode.OK;

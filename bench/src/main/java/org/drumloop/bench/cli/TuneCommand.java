@@ -18,6 +18,7 @@ import java.util.concurrent.Callable;
 import org.drumloop.bench.ConfigResolver;
 import org.drumloop.bench.ExitCode;
 import org.drumloop.bench.record.AtomicOutput;
+import org.drumloop.bench.record.RecordHeader;
 import org.drumloop.bench.scenario.Scenario;
 import org.drumloop.bench.sim.ScenarioRunner;
 import org.drumloop.bench.tune.BumpAnalysis;
@@ -111,6 +112,9 @@ public final class TuneCommand implements Callable<Integer> {
                     + ConfigResolver.names("tuning", ".tuning") + ")");
         }
         FirmwareConfig base = FirmwareConfig.load(basePath);
+        RecordHeader.Builder record = RecordHeader.begin("Tuning from bump tests"
+                + (plant != null ? ": " + plant : ""));
+        record.input("base tuning", basePath, ConfigResolver.displayName(basePath));
         Path plantPath = null;
         PlantConfig pc = null;
         if (plant != null) {
@@ -120,6 +124,7 @@ public final class TuneCommand implements Callable<Integer> {
                         + ConfigResolver.names("plants", ".plant") + ")");
             }
             pc = ScenarioRunner.loadPlant(plantPath);
+            record.input("plant", plantPath, ConfigResolver.displayName(plantPath));
         }
         Files.createDirectories(out);
         List<String> sources = new ArrayList<>();
@@ -132,6 +137,7 @@ public final class TuneCommand implements Callable<Integer> {
             for (Path t : trends) {
                 Trend tr = TrendCsv.read(t, t.toString(), map, Set.of(TrendSignal.TIME), EnumSet.allOf(TrendSignal.class));
                 data.add(tr);
+                record.input("trend", t, t.toString());
                 sources.add(String.format(Locale.ROOT, "recorded trend %s (SHA-256 %s, %d rows, %.1f s)", t, tr.sha256(),
                         tr.size(), tr.durationS()));
             }
@@ -204,7 +210,7 @@ public final class TuneCommand implements Callable<Integer> {
         written.add(report.toString());
         AtomicOutput.write(report, TuneReport.render(new TuneReport.Content(
                 pc != null ? pc.name() : trends.toString(), sources, fitList, d, ConfigResolver.displayName(basePath),
-                analysisNotes, v, vNote, written)));
+                analysisNotes, v, vNote, written), record.finish()));
         o.println("wrote " + String.join(", ", written));
         if (v != null && !v.ok()) {
             err.printf(Locale.ROOT, "tune: the tuned file passes %d scenarios, the base %d%n", v.tunedPassed(), v.basePassed());

@@ -3,24 +3,29 @@ package org.drumloop.bench.tune;
 import java.util.Locale;
 
 import org.drumloop.bench.record.Html;
+import org.drumloop.bench.record.RecordHeader;
+import org.drumloop.bench.record.ReportPage;
 import org.drumloop.core.io.EngUnit;
 
-/** The fit-plant report: the fitted values and the simulated level and pressure over the recorded ones. Self-contained. */
+/**
+ * The fit-plant report: record header, the fitted values and the simulated level and pressure over
+ * the recorded ones, in the frame every drumloop record shares ({@link ReportPage}).
+ */
 public final class FitReport {
     private FitReport() {
     }
 
-    public static String render(String startFile, String trend, String sha256, String fittedFile, PlantFit.Result r,
-                                double[] tS, double[] recordedPressurePa, double wallS) {
+    public static String render(RecordHeader h, String startFile, String fittedFile,
+                                PlantFit.Result r, double[] tS, double[] recordedPressurePa, double wallS) {
         StringBuilder sb = new StringBuilder();
-        TuneReport.head(sb, "drumloop fit-plant: " + trend);
-        sb.append("<h1>Plant file fitted to a recorded trend</h1>\n");
+        ReportPage.open(sb, h.title(), h.dateText());
+        sb.append("<header><h1>").append(Html.esc(h.title())).append("</h1></header>\n");
         TuneReport.caution(sb, "A fitted plant model reproduces the record it was fitted to; confirm it on another"
                 + " record before tests rely on it.");
-        sb.append("<ul><li>start file: ").append(Html.esc(startFile)).append("</li><li>trend: ").append(Html.esc(trend))
-                .append(" (SHA-256 ").append(Html.esc(sha256)).append(")</li><li>fitted file: ").append(Html.esc(fittedFile))
-                .append(String.format(Locale.ROOT, "</li><li>%d iterations, %d simulations, %.2f s</li></ul>%n",
-                        r.iterations(), r.evaluations(), wallS));
+        h.html(sb);
+        sb.append("<p>Fitted file ").append(Html.esc(fittedFile)).append(" (the start file ").append(Html.esc(startFile))
+                .append(" with the fitted lines changed): ").append(String.format(Locale.ROOT,
+                        "%d iterations, %d simulations, %.2f s.</p>%n", r.iterations(), r.evaluations(), wallS));
         sb.append("<table><tr><th class=\"l\">key</th><th>start</th><th>fitted</th><th>std. error</th><th>change</th></tr>\n");
         for (int j = 0; j < r.keys().size(); j++) {
             sb.append(String.format(Locale.ROOT, "<tr><td class=\"l\">%s</td><td>%.6g</td><td>%.6g</td><td>%.2g</td>"
@@ -44,7 +49,8 @@ public final class FitReport {
         String[] labels = {"recorded", "start file", "fitted"};
         sb.append("<h2>Drum level (change from start)</h2>\n").append(SvgChart.render(tS, level, labels, "level [mm]"));
         sb.append("<h2>Drum pressure</h2>\n").append(SvgChart.render(tS, pressure, labels, "pressure [barg]"));
-        sb.append("</body>\n</html>\n");
+        ReportPage.signOff(sb);
+        ReportPage.close(sb, "drumloop plant calibration record - drumloop " + h.build().describe());
         return sb.toString();
     }
 }

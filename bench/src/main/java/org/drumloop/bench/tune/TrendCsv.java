@@ -4,8 +4,6 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
 import java.time.LocalDateTime;
 import java.time.format.DateTimeFormatter;
 import java.time.format.DateTimeFormatterBuilder;
@@ -15,13 +13,13 @@ import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.EnumMap;
-import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 
+import org.drumloop.bench.record.InputFile;
 import org.drumloop.core.config.ConfigException;
 import org.drumloop.core.config.ConfigProblems;
 import org.drumloop.core.io.EngUnit;
@@ -88,24 +86,16 @@ public final class TrendCsv {
      */
     public static Trend read(Path file, String shown, Map<TrendSignal, String> mapping, Set<TrendSignal> required,
                              Set<TrendSignal> optional) throws ConfigException {
-        byte[] bytes;
+        List<String> lines;
+        String sha;
         try {
-            bytes = Files.readAllBytes(file);
+            lines = Files.readAllLines(file, StandardCharsets.UTF_8);
+            sha = InputFile.sha256(file);
         } catch (IOException e) {
             throw new ConfigException(shown, 0, "", "cannot read: " + e.getMessage());
         }
-        List<String> lines = new String(bytes, StandardCharsets.UTF_8).lines().toList();
         Trend t = parse(shown, lines, mapping, required, optional);
-        return new Trend(t.file(), sha256(bytes), t.tS(), t.signals(), t.headers());
-    }
-
-    /** Hex SHA-256 of some bytes. */
-    public static String sha256(byte[] bytes) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("SHA-256 is a required JDK algorithm", e);
-        }
+        return new Trend(t.file(), sha, t.tS(), t.signals(), t.headers());
     }
 
     /** Parses the lines of a trend file (see {@link #read}). */

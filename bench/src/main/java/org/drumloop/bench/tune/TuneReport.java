@@ -4,11 +4,15 @@ import java.util.List;
 import java.util.Locale;
 
 import org.drumloop.bench.record.Html;
-import org.drumloop.bench.record.HtmlReport;
+import org.drumloop.bench.record.RecordHeader;
+import org.drumloop.bench.record.ReportPage;
 import org.drumloop.bench.record.RunSummary;
 import org.drumloop.core.io.EngUnit;
 
-/** {@code tune-report.html}: the data, each fit overlaid on its record, the design and the verification. Self-contained. */
+/**
+ * {@code tune-report.html}: the record header, the data, each fit overlaid on its record, the design
+ * and the verification, in the frame every drumloop record shares ({@link ReportPage}).
+ */
 public final class TuneReport {
     private TuneReport() {
     }
@@ -18,12 +22,13 @@ public final class TuneReport {
                           String baseTuning, List<String> analysisNotes, Verification.Result verification,
                           String verificationNote, List<String> written) { }
 
-    public static String render(Content c) {
+    public static String render(Content c, RecordHeader h) {
         StringBuilder sb = new StringBuilder();
-        head(sb, "drumloop tune: " + c.source());
-        sb.append("<h1>Tuning from bump tests</h1>\n");
+        ReportPage.open(sb, h.title(), h.dateText());
+        sb.append("<header><h1>").append(Html.esc(h.title())).append("</h1></header>\n");
         caution(sb, "Tuned settings are a starting point: confirm them on the plant, step by step, with the"
                 + " boiler maker's limits and under the site's permit to work.");
+        h.html(sb);
         sb.append("<h2>Data</h2>\n<ul>\n");
         for (String s : c.sources()) {
             sb.append("<li>").append(Html.esc(s)).append("</li>\n");
@@ -50,25 +55,16 @@ public final class TuneReport {
         for (String w : c.written()) {
             sb.append("<li>").append(Html.esc(w)).append("</li>\n");
         }
-        sb.append("</ul>\n</body>\n</html>\n");
+        sb.append("</ul>\n");
+        ReportPage.signOff(sb);
+        ReportPage.close(sb, "drumloop tuning record - drumloop " + h.build().describe());
         return sb.toString();
     }
 
-    static void head(StringBuilder sb, String title) {
-        sb.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>")
-                .append(Html.esc(title)).append("</title>\n<style>\n")
-                .append("body{font-family:system-ui,'DejaVu Sans',sans-serif;margin:24px;color:#222;max-width:1100px}")
-                .append("table{border-collapse:collapse;margin:8px 0}td,th{border:1px solid #ddd;padding:3px 8px;")
-                .append("text-align:right}th{background:#f4f2ee}td.l,th.l{text-align:left}")
-                .append(".caution{background:#f1ead8;border-left:4px solid #b0892f;padding:8px 12px;font-size:.9em}")
-                .append(".fail{color:#a4513a;font-weight:bold}.pass{color:#3f8585}.note{color:#6f5a88}")
-                .append("svg.plot{max-width:100%;height:auto;font-family:system-ui,sans-serif;fill:#444}")
-                .append("\n</style>\n</head>\n<body>\n");
-    }
-
+    /** The shared caution and what is particular to this record. */
     static void caution(StringBuilder sb, String extra) {
-        sb.append("<aside class=\"caution\"><strong>Caution.</strong> ").append(Html.esc(HtmlReport.CAUTION))
-                .append(' ').append(Html.esc(extra)).append("</aside>\n");
+        ReportPage.caution(sb);
+        sb.append("<p class=\"note\">").append(Html.esc(extra)).append("</p>\n");
     }
 
     private static void fit(StringBuilder sb, BumpFit f) {
