@@ -76,18 +76,7 @@ public final class FitPlantCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter o = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        try {
-            return run(o);
-        } catch (ConfigException e) {
-            err.println(e.getMessage());
-            return ExitCode.BAD_INPUT;
-        } catch (IllegalArgumentException | IllegalStateException e) {
-            err.println("fit-plant: " + e.getMessage());
-            return ExitCode.BAD_INPUT;
-        } catch (IOException e) {
-            err.println("fit-plant: cannot write " + out + ": " + e.getMessage());
-            return ExitCode.IO_ERROR;
-        }
+        return Guarded.run("fit-plant", err, out, () -> run(o));
     }
 
     private int run(PrintWriter o) throws ConfigException, IOException {

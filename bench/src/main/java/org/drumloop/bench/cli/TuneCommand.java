@@ -86,18 +86,7 @@ public final class TuneCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter o = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
-        try {
-            return run(o, err);
-        } catch (ConfigException e) {
-            err.println(e.getMessage());
-            return ExitCode.BAD_INPUT;
-        } catch (IllegalArgumentException | IllegalStateException e) {
-            err.println("tune: " + e.getMessage());
-            return ExitCode.BAD_INPUT;
-        } catch (IOException e) {
-            err.println("tune: cannot write " + out + ": " + e.getMessage());
-            return ExitCode.IO_ERROR;
-        }
+        return Guarded.run("tune", err, out, () -> run(o, err));
     }
 
     private int run(PrintWriter o, PrintWriter err) throws ConfigException, IOException {

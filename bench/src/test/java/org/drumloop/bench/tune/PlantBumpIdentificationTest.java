@@ -57,18 +57,14 @@ class PlantBumpIdentificationTest {
     }
 
     @Test
-    void levelSlopeOnFeedMatchesTheMassBalanceOnTheReferencePlant() throws Exception {
+    void levelSlopesOnFeedAndSteamMatchTheMassBalanceOnTheReferencePlant() throws Exception {
         PlantConfig cfg = plant("ab160");
         double expected = massBalanceSlope(cfg);
-        Trend feed = PlantBumps.run(cfg, PlantBumps.Input.FEED, 600, false);
-        BumpFit f = Identification.fit("feed", StepModel.Kind.INTEGRATOR_LAG, feed.tS(), feed.get(TrendSignal.FEED_FLOW),
-                feed.get(TrendSignal.DRUM_LEVEL));
+        BumpFit f = levelFit(cfg, PlantBumps.Input.FEED, 600);
         assertEquals(expected, f.get("kI"), REL * expected, "fitted " + f.get("kI"));
         // the shrink: the feed step's inverse response (RHP zero) is positive
         assertTrue(-f.get("kL") / f.get("kI") - f.get("tau") > 0);
-        Trend steam = PlantBumps.run(cfg, PlantBumps.Input.STEAM, 600, false);
-        BumpFit s = Identification.fit("steam", StepModel.Kind.INTEGRATOR_LAG, steam.tS(),
-                steam.get(TrendSignal.STEAM_FLOW), steam.get(TrendSignal.DRUM_LEVEL));
+        BumpFit s = levelFit(cfg, PlantBumps.Input.STEAM, 600);
         assertEquals(-expected, s.get("kI"), REL * expected, "fitted " + s.get("kI"));
         assertTrue(s.get("kL") > 0, "swell");
     }
@@ -78,10 +74,15 @@ class PlantBumpIdentificationTest {
         // the small drum's pressure control takes long to settle after cold feed: a record of 1800 s
         PlantConfig cfg = plant("aux-boiler");
         double expected = massBalanceSlope(cfg);
-        Trend feed = PlantBumps.run(cfg, PlantBumps.Input.FEED, 1800, false);
-        BumpFit f = Identification.fit("feed", StepModel.Kind.INTEGRATOR_LAG, feed.tS(), feed.get(TrendSignal.FEED_FLOW),
-                feed.get(TrendSignal.DRUM_LEVEL));
+        BumpFit f = levelFit(cfg, PlantBumps.Input.FEED, 1800);
         assertEquals(expected, f.get("kI"), REL * expected, "fitted " + f.get("kI"));
+    }
+
+    /** An integrator with one lag fitted to a level bump test with the pressure control in automatic. */
+    private static BumpFit levelFit(PlantConfig cfg, PlantBumps.Input input, double durationS) {
+        Trend t = PlantBumps.run(cfg, input, durationS, false);
+        TrendSignal u = input == PlantBumps.Input.FEED ? TrendSignal.FEED_FLOW : TrendSignal.STEAM_FLOW;
+        return Identification.fit(input.name(), StepModel.Kind.INTEGRATOR_LAG, t.tS(), t.get(u), t.get(TrendSignal.DRUM_LEVEL));
     }
 
     @Test
