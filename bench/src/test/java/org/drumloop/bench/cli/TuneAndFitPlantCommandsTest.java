@@ -74,6 +74,16 @@ class TuneAndFitPlantCommandsTest {
     }
 
     @Test
+    void aLevelLoopTunedFarTighterThanTheRuleFailsScenariosAndExitsOneWithTheTable() throws Exception {
+        // tauC = 5 s against an effective delay of about 250 s: far inside the SIMC recommendation tauC >= theta
+        Path dir = tmp.resolve("tight");
+        assertEquals(ExitCode.FAILED, drumloop("tune", "--plant", "aux-boiler", "--tau-c", "5", "--loops", "master,single",
+                "--out", dir.toString()), out + "\n" + err);
+        assertTrue(out.toString().contains("FAIL") && err.toString().contains("the tuned file passes"), out + "\n" + err);
+        assertEquals(List.of(), CheckCommand.check(dir.resolve("tuned.tuning")), "written all the same, for the engineer to see");
+    }
+
+    @Test
     void aTrendWhoseTimeGoesBackIsBadInputNamingFileLineAndColumn() throws Exception {
         Path csv = tmp.resolve("bad.csv");
         Files.write(csv, List.of("t[s],feed_flow[t/h],drum_level[mm]", "0,10,0", "1,10,0", "2,11,0", "1.5,11,1",
