@@ -106,7 +106,7 @@ public final class BumpAnalysis {
                     starts.add(new double[] {q[0], q[1], q[2], sign * q[1], f * q[2], q[3], q[4]});
                 }
             }
-            two = Identification.fit(title, StepModel.Kind.INTEGRATOR_TWO_LAGS, tS, u, y, Double.POSITIVE_INFINITY, starts);
+            two = Identification.fit(title, StepModel.Kind.INTEGRATOR_TWO_LAGS, tS, u, y, starts);
         } catch (IllegalArgumentException e) {
             return one;
         }

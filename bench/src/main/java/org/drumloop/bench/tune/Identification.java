@@ -41,32 +41,15 @@ public final class Identification {
      * @throws IllegalArgumentException the input never moves, or the record is too short
      */
     public static BumpFit fit(String title, StepModel.Kind kind, double[] tS, double[] u, double[] y) {
-        return fit(title, kind, tS, u, y, Double.POSITIVE_INFINITY);
-    }
-
-    /**
-     * Fits a model to the first part of a record, up to {@code untilS} (a structure that holds only
-     * early in the response, such as the swell before the pressure control catches up).
-     */
-    public static BumpFit fit(String title, StepModel.Kind kind, double[] tS, double[] u, double[] y, double untilS) {
-        return fit(title, kind, tS, u, y, untilS, null);
+        return fit(title, kind, tS, u, y, null);
     }
 
     /**
      * Fits from given starting points (parameters in {@link StepModel.Kind#names()} order) instead of
      * the guessed ones.
      */
-    public static BumpFit fit(String title, StepModel.Kind kind, double[] tS, double[] u, double[] y, double untilS,
+    public static BumpFit fit(String title, StepModel.Kind kind, double[] tS, double[] u, double[] y,
                               List<double[]> startPoints) {
-        int end = tS.length;
-        while (end > TrendCsv.MIN_ROWS && tS[end - 1] > untilS) {
-            end--;
-        }
-        if (end < tS.length) {
-            tS = java.util.Arrays.copyOf(tS, end);
-            u = java.util.Arrays.copyOf(u, end);
-            y = java.util.Arrays.copyOf(y, end);
-        }
         int n = tS.length;
         if (n < TrendCsv.MIN_ROWS || u.length != n || y.length != n) {
             throw new IllegalArgumentException(title + ": record too short or arrays of unequal length");
@@ -211,16 +194,6 @@ public final class Identification {
         }
     }
 
-    /**
-     * End of the window a swell is fitted on: the time the level comes back through its start, plus
-     * half that again after the step (later, the plant's pressure control changes the picture).
-     */
-    public static double swellWindowEndS(double[] tS, double[] u, double[] y) {
-        Shape s = Shape.of(tS, u, y);
-        double back = s.returnTime(tS, y);
-        return s.tStep + 1.5 * (back - s.tStep);
-    }
-
     /** Starting points guessed from the record's shape. */
     private static List<double[]> starts(StepModel.Kind kind, Shape s, double[] tS, double[] du, double[] y) {
         List<double[]> list = new ArrayList<>();
@@ -296,22 +269,6 @@ public final class Identification {
                 s.yEnd += y[i] / tail;
             }
             return s;
-        }
-
-        /**
-         * Time the output comes back through its starting value after moving against its final trend
-         * (the end of a swell); the record's end when it never does.
-         */
-        double returnTime(double[] tS, double[] y) {
-            int a = (int) (tS.length * 2 / 3.0);
-            double trend = Math.signum((y[tS.length - 1] - y[a]) * duEnd);
-            double tExt = inverseExtremumTime(tS, y, trend);
-            for (int i = iStep; i < tS.length; i++) {
-                if (tS[i] > tExt && trend * duEnd * (y[i] - y0) >= 0 && tExt > tStep) {
-                    return tS[i];
-                }
-            }
-            return tS[tS.length - 1];
         }
 
         /** First time after the step the output has covered a fraction of its final change. */
